@@ -1,0 +1,136 @@
+package org.precedent.knowledge.store;
+
+import java.io.IOException;
+import java.nio.channels.FileChannel;
+import java.nio.channels.FileLock;
+import java.nio.channels.OverlappingFileLockException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Optional;
+import java.util.stream.Stream;
+
+/**
+ * The one directory where Precedent keeps its state.
+ *
+ * <p>Knowledge (tickets, answer groups, the index) lives in numbered generations,
+ * {@code knowledge/gen-000001}, ...; the file {@code knowledge/CURRENT} names the one in force. A
+ * change builds a complete new generation, then replaces CURRENT atomically, so a crash at any
+ * moment leaves the previous generation serving. Later modules keep models under {@code models/}.
+ */
+public final class DataDir {
+  private static final String GENERATION_PREFIX = "gen-";
+
+  private final Path root;
+
+  public DataDir(Path root) {
+    this.root = root.toAbsolutePath().normalize();
+  }
+
+  public Path root() {
+    return root;
+  }
+
+  public Path knowledge() {
+    return root.resolve("knowledge");
+  }
+
+  public Path models() {
+    return root.resolve("models");
+  }
+
+  /** The generation in force, if any knowledge was ever stored. */
+  public Optional<Path> currentGeneration() throws IOException {
+    try {
+      String name = Files.readString(knowledge().resolve("CURRENT"), StandardCharsets.UTF_8).strip();
+      Path generation = knowledge().resolve(name);
+      if (!name.startsWith(GENERATION_PREFIX) || !Files.isDirectory(generation)) {
+        throw new IOException(knowledge().resolve("CURRENT") + ": names '" + name
+            + "', which is not a generation directory");
+      }
+      return Optional.of(generation);
+    } catch (NoSuchFileException e) {
+      return Optional.empty();
+    }
+  }
+
+  /** A fresh, empty directory for the next generation; it is not in force until activated. */
+  Path newGeneration() throws IOException {
+    Files.createDirectories(knowledge());
+    int next = generations().stream().mapToInt(DataDir::number).max().orElse(0) + 1;
+    Path dir = knowledge().resolve(String.format("%s%06d", GENERATION_PREFIX, next));
+    Files.createDirectory(dir);
+    return dir;
+  }
+
+  /** Puts {@code generation} in force, then removes generations older than the one it replaces. */
+  void activate(Path generation) throws IOException {
+    Optional<Path> previous = currentGeneration();
+    AtomicFiles.writeString(knowledge().resolve("CURRENT"), generation.getFileName() + "\n");
+    for (Path old : generations()) {
+      boolean keep = old.equals(generation) || previous.map(old::equals).orElse(false);
+      if (!keep) {
+        deleteTree(old);
+      }
+    }
+  }
+
+  /** Removes an unfinished generation left by a failed or interrupted change. */
+  static void discard(Path generation) {
+    try {
+      deleteTree(generation);
+    } catch (IOException e) {
+      // Left for the next activation to remove.
+    }
+  }
+
+  /**
+   * Takes the data directory's write lock, so that two changes cannot interleave. Readers need no
+   * lock: they read whichever generation CURRENT named when they opened it.
+   */
+  public FileLock lock() throws IOException {
+    Files.createDirectories(root);
+    FileChannel channel = FileChannel.open(root.resolve(".lock"), StandardOpenOption.CREATE,
+        StandardOpenOption.WRITE);
+    try {
+      FileLock lock = channel.tryLock();
+      if (lock == null) {
+        channel.close();
+        throw new IOException(root + ": another Precedent process is changing this data directory");
+      }
+      return lock;
+    } catch (OverlappingFileLockException e) {
+      channel.close();
+      throw new IOException(root + ": this process already holds the data directory's lock", e);
+    }
+  }
+
+  private List<Path> generations() throws IOException {
+    if (!Files.isDirectory(knowledge())) {
+      return List.of();
+    }
+    try (Stream<Path> list = Files.list(knowledge())) {
+      return list.filter(p -> p.getFileName().toString().matches(GENERATION_PREFIX + "\\d+"))
+          .toList();
+    }
+  }
+
+  private static int number(Path generation) {
+    return Integer.parseInt(generation.getFileName().toString().substring(GENERATION_PREFIX.length()));
+  }
+
+  static void deleteTree(Path dir) throws IOException {
+    if (!Files.exists(dir)) {
+      return;
+    }
+    try (Stream<Path> walk = Files.walk(dir)) {
+      for (Path p : walk.sorted(Comparator.reverseOrder()).toList()) {
+        Files.deleteIfExists(p);
+      }
+    }
+  }
+}

@@ -1,0 +1,147 @@
+package org.precedent.knowledge.store;
+
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.datatype.jsr310.JavaTimeModule;
+import java.io.BufferedReader;
+import java.io.BufferedWriter;
+import java.io.Closeable;
+import java.io.IOException;
+import java.io.OutputStreamWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import org.precedent.knowledge.group.Grouping;
+import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.retrieve.Retriever;
+import org.precedent.knowledge.retrieve.TicketIndex;
+import org.precedent.knowledge.ticket.Ticket;
+
+/**
+ * One generation of stored knowledge: the cleaned tickets, their answer groups and the index.
+ *
+ * <p>Files of a generation: {@code tickets.jsonl} (one ticket a line), {@code groups.json},
+ * {@code manifest.json}, and {@code index/} (Lucene). A generation never changes once written.
+ */
+public final class Knowledge implements Closeable {
+  static final ObjectMapper JSON = new ObjectMapper()
+      .registerModule(new JavaTimeModule())
+      .disable(SerializationFeature.WRITE_DATES_AS_TIMESTAMPS)
+      .disable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
+
+  private final Path generation;
+  private final Map<String, Ticket> tickets;
+  private final Grouping grouping;
+  private final Manifest manifest;
+  private final Retriever retriever;
+
+  private Knowledge(Path generation, Map<String, Ticket> tickets, Grouping grouping,
+      Manifest manifest, Retriever retriever) {
+    this.generation = generation;
+    this.tickets = Collections.unmodifiableMap(tickets);
+    this.grouping = grouping;
+    this.manifest = manifest;
+    this.retriever = retriever;
+  }
+
+  /** The knowledge in force in {@code dir}, or empty when nothing was ingested yet. */
+  public static Optional<Knowledge> open(DataDir dir) throws IOException {
+    Optional<Path> current = dir.currentGeneration();
+    if (current.isEmpty()) {
+      return Optional.empty();
+    }
+    Path generation = current.get();
+    Map<String, Ticket> tickets = new LinkedHashMap<>();
+    try (BufferedReader in = Files.newBufferedReader(generation.resolve("tickets.jsonl"))) {
+      String line;
+      while ((line = in.readLine()) != null) {
+        Ticket t = JSON.readValue(line, Ticket.class);
+        tickets.put(t.id(), t);
+      }
+    }
+    Grouping grouping = JSON.readValue(generation.resolve("groups.json").toFile(), Grouping.class);
+    Manifest manifest = JSON.readValue(generation.resolve("manifest.json").toFile(), Manifest.class);
+    Retriever retriever = Retriever.open(generation.resolve("index"), grouping);
+    return Optional.of(new Knowledge(generation, tickets, grouping, manifest, retriever));
+  }
+
+  /**
+   * Writes a new generation holding exactly {@code tickets} and puts it in force. The caller holds
+   * the data directory's lock. On any failure the unfinished generation is removed and the previous
+   * one stays in force.
+   */
+  public static void replace(DataDir dir, List<Ticket> tickets, Grouping grouping,
+      List<String> sources, Progress indexing) throws IOException {
+    Path generation = dir.newGeneration();
+    try {
+      AtomicFiles.write(generation.resolve("tickets.jsonl"), out -> {
+        BufferedWriter w = new BufferedWriter(new OutputStreamWriter(out, StandardCharsets.UTF_8));
+        for (Ticket t : tickets) {
+          w.write(JSON.writeValueAsString(t));
+          w.write('\n');
+        }
+        w.flush();
+      });
+      AtomicFiles.write(generation.resolve("groups.json"), out -> JSON.writeValue(
+          nonClosing(out), grouping));
+      Path index = generation.resolve("index");
+      Files.createDirectory(index);
+      TicketIndex.build(index, tickets, grouping.groupOfTicket(), indexing);
+      Manifest manifest = new Manifest(java.time.Instant.now(), tickets.size(),
+          grouping.groups().size(), grouping.oneOffs().size(), grouping.method(), sources);
+      // The manifest is written last: a generation without one was never finished.
+      AtomicFiles.write(generation.resolve("manifest.json"), out -> JSON.writerWithDefaultPrettyPrinter()
+          .writeValue(nonClosing(out), manifest));
+      dir.activate(generation);
+    } catch (IOException | RuntimeException e) {
+      DataDir.discard(generation);
+      throw e;
+    }
+  }
+
+  private static java.io.OutputStream nonClosing(java.io.OutputStream out) {
+    return new java.io.FilterOutputStream(out) {
+      @Override
+      public void close() throws IOException {
+        flush();
+      }
+    };
+  }
+
+  public Path generation() {
+    return generation;
+  }
+
+  /** Tickets by id, in the order they were stored. */
+  public Map<String, Ticket> tickets() {
+    return tickets;
+  }
+
+  public List<Ticket> ticketList() {
+    return new ArrayList<>(tickets.values());
+  }
+
+  public Grouping grouping() {
+    return grouping;
+  }
+
+  public Manifest manifest() {
+    return manifest;
+  }
+
+  public Retriever retriever() {
+    return retriever;
+  }
+
+  @Override
+  public void close() throws IOException {
+    retriever.close();
+  }
+}
