@@ -1,0 +1,136 @@
+package org.precedent.engine.measure;
+
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * Picks the reply threshold with the greatest coverage whose precision is guaranteed, with high
+ * probability, to reach a target, following Selection with Guaranteed Risk (SGR; Geifman and
+ * El-Yaniv 2017), stated here for precision = 1 - risk.
+ *
+ * <p>Held-out answers are sorted by confidence. A binary search over that order runs ceil(log2 n)
+ * steps; at each it accepts every answer with confidence >= the probed one and computes the one-sided
+ * Clopper-Pearson lower bound on precision at delta / ceil(log2 n). Splitting delta over the steps
+ * (Bonferroni) keeps the overall chance that any certified threshold is wrong below delta. If the
+ * bound reaches the target the search moves to lower thresholds, otherwise to higher ones.
+ *
+ * <p>One widening of SGR's search range: SGR never probes the lowest confidence, so it can never
+ * certify answering everything. Here the range starts one below, which costs no extra step.
+ */
+public final class GuaranteedThreshold {
+  /** Default target precision for automatic replies. */
+  public static final double DEFAULT_TARGET_PRECISION = 0.95;
+  /** Default allowed probability that the guarantee fails. */
+  public static final double DEFAULT_DELTA = 0.05;
+
+  private GuaranteedThreshold() {}
+
+  /** {@link #recommend(List, double, double)} with target 0.95 and delta 0.05. */
+  public static ThresholdRecommendation recommend(List<ScoredAnswer> heldOut) {
+    return recommend(heldOut, DEFAULT_TARGET_PRECISION, DEFAULT_DELTA);
+  }
+
+  /**
+   * Recommends a threshold whose precision is at least {@code targetPrecision} with probability at
+   * least 1 - {@code delta}, provided the held-out answers are a fair sample of future tickets.
+   */
+  public static ThresholdRecommendation recommend(
+      List<ScoredAnswer> heldOut, double targetPrecision, double delta) {
+    Inputs.open01(targetPrecision, "target precision");
+    Inputs.open01(delta, "delta");
+    List<ScoredAnswer> all = Inputs.nonEmpty(heldOut, "threshold recommendation");
+    int n = all.size();
+    double[] confidence = new double[n];
+    boolean[] correct = new boolean[n];
+    ScoredAnswer[] ascending = all.toArray(new ScoredAnswer[0]);
+    Arrays.sort(ascending, (a, b) -> Double.compare(a.confidence(), b.confidence()));
+    for (int i = 0; i < n; i++) {
+      confidence[i] = ascending[i].confidence();
+      correct[i] = ascending[i].correct();
+    }
+    // rightFrom[i] = right answers among positions i..n-1 (all answers at or above position i).
+    int[] rightFrom = new int[n + 1];
+    for (int i = n - 1; i >= 0; i--) {
+      rightFrom[i] = rightFrom[i + 1] + (correct[i] ? 1 : 0);
+    }
+
+    int steps = searchSteps(n);
+    double correctedDelta = delta / steps;
+    int minimal = minimalSample(targetPrecision, correctedDelta);
+
+    // Probe z in 1..n means "threshold = z-th lowest confidence"; lo = 0 lets z = 1 be probed.
+    int lo = 0;
+    int hi = n;
+    int tried = 0;
+    int bestStart = -1;
+    double bestBound = Double.NaN;
+    while (hi - lo > 1 && tried < steps) {
+      int z = lo + (hi - lo + 1) / 2;
+      int start = firstWithSameConfidence(confidence, z - 1);
+      int accepted = n - start;
+      double bound = Proportions.clopperPearsonLower(rightFrom[start], accepted, correctedDelta);
+      tried++;
+      if (bound >= targetPrecision) {
+        hi = z;
+        bestStart = start;
+        bestBound = bound;
+      } else {
+        lo = z;
+      }
+    }
+    if (tried == 0) {
+      // A single answer: the loop range is already one wide, so probe it directly.
+      tried = 1;
+      double bound = Proportions.clopperPearsonLower(rightFrom[0], n, correctedDelta);
+      if (bound >= targetPrecision) {
+        bestStart = 0;
+        bestBound = bound;
+      }
+    }
+
+    if (bestStart >= 0) {
+      int accepted = n - bestStart;
+      return new ThresholdRecommendation(ThresholdRecommendation.Status.OK, confidence[bestStart],
+          (double) accepted / n, (double) rightFrom[bestStart] / accepted, bestBound, n, tried,
+          targetPrecision, correctedDelta, minimal);
+    }
+    ThresholdRecommendation.Status status = n < minimal
+        ? ThresholdRecommendation.Status.TOO_FEW
+        : ThresholdRecommendation.Status.NOT_CERTIFIED;
+    return new ThresholdRecommendation(status, Double.POSITIVE_INFINITY, 0.0, Double.NaN, Double.NaN,
+        n, tried, targetPrecision, correctedDelta, minimal);
+  }
+
+  /** ceil(log2 n), at least 1: the number of binary-search steps, and the Bonferroni divisor. */
+  static int searchSteps(int n) {
+    return n <= 2 ? 1 : 32 - Integer.numberOfLeadingZeros(n - 1);
+  }
+
+  /**
+   * Smallest m with delta^(1/m) >= target: m all-right answers give a Clopper-Pearson lower bound of
+   * exactly delta^(1/m), so fewer can never certify the target.
+   */
+  static int minimalSample(double target, double delta) {
+    double estimate = Math.ceil(Math.log(delta) / Math.log(target));
+    if (estimate >= Integer.MAX_VALUE) {
+      throw new IllegalArgumentException("target precision " + target + " needs an impractically large sample");
+    }
+    int m = Math.max(1, (int) estimate);
+    // The logarithms can round across an integer; settle on the exact boundary.
+    while (Math.pow(delta, 1.0 / m) < target) {
+      m++;
+    }
+    while (m > 1 && Math.pow(delta, 1.0 / (m - 1)) >= target) {
+      m--;
+    }
+    return m;
+  }
+
+  private static int firstWithSameConfidence(double[] ascending, int index) {
+    int i = index;
+    while (i > 0 && ascending[i - 1] == ascending[index]) {
+      i--;
+    }
+    return i;
+  }
+}
