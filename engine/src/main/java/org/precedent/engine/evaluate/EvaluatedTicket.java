@@ -1,0 +1,54 @@
+package org.precedent.engine.evaluate;
+
+import java.util.Objects;
+import org.precedent.engine.measure.RankedOutcome;
+import org.precedent.engine.measure.ScoredAnswer;
+
+/**
+ * How one system did on one held-out ticket.
+ *
+ * <p>The automatic reply would be the system's top candidate, so it is right only when the ticket is
+ * in scope and the right answer is ranked first. An out-of-scope ticket has no right answer: replying
+ * to it at all is a mistake, which is why it must carry rank 0.
+ *
+ * @param ticketId    identifies the ticket across systems, so that runs can be checked to cover the
+ *                    same tickets
+ * @param category    the ticket's category, for the per-category table
+ * @param inScope     whether some past answer is right for this ticket
+ * @param rankOfRight 1-based rank of the right answer among the candidates; 0 when it is absent or
+ *                    the ticket is out of scope
+ * @param confidence  the system's confidence in its top candidate, in [0, 1]
+ */
+public record EvaluatedTicket(
+    String ticketId, String category, boolean inScope, int rankOfRight, double confidence) {
+  public EvaluatedTicket {
+    Objects.requireNonNull(ticketId, "ticket id");
+    Objects.requireNonNull(category, "category");
+    if (ticketId.isBlank()) {
+      throw new IllegalArgumentException("ticket id is blank");
+    }
+    if (rankOfRight < 0) {
+      throw new IllegalArgumentException("ticket " + ticketId + ": rank of the right answer is negative");
+    }
+    if (!inScope && rankOfRight != 0) {
+      throw new IllegalArgumentException(
+          "ticket " + ticketId + " is out of scope, so it has no right answer to rank; use rank 0");
+    }
+    if (!(confidence >= 0.0 && confidence <= 1.0)) {
+      throw new IllegalArgumentException("ticket " + ticketId + ": confidence " + confidence + " is outside [0, 1]");
+    }
+  }
+
+  /** Whether the automatic reply (the top candidate) would have been right. */
+  boolean replyRight() {
+    return inScope && rankOfRight == 1;
+  }
+
+  ScoredAnswer scored() {
+    return new ScoredAnswer(confidence, replyRight());
+  }
+
+  RankedOutcome ranked() {
+    return new RankedOutcome(rankOfRight);
+  }
+}

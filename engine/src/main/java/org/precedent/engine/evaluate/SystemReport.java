@@ -1,0 +1,40 @@
+package org.precedent.engine.evaluate;
+
+import java.util.List;
+import java.util.Objects;
+import org.precedent.engine.measure.ReliabilityBin;
+import org.precedent.engine.measure.RiskCoveragePoint;
+import org.precedent.engine.measure.ThresholdRecommendation;
+import org.precedent.engine.measure.ThresholdRow;
+
+/**
+ * Everything the report holds about one system.
+ *
+ * @param name           the system's label
+ * @param measures       headline measures
+ * @param riskCoverage   the risk-coverage curve, thinned to at most
+ *                       {@value EvaluationReports#MAX_CURVE_POINTS} points (first and last kept)
+ * @param reliability    the {@value org.precedent.engine.measure.Calibration#DEFAULT_BINS} bins of
+ *                       the reliability diagram, empty ones included
+ * @param thresholds     one row per threshold 0.00, 0.01, ..., 1.00
+ * @param recommendation the guaranteed threshold for the report's target precision
+ * @param categories     per-category results
+ */
+public record SystemReport(
+    String name,
+    Measures measures,
+    List<RiskCoveragePoint> riskCoverage,
+    List<ReliabilityBin> reliability,
+    List<ThresholdRow> thresholds,
+    ThresholdRecommendation recommendation,
+    CategoryTable categories) {
+  public SystemReport {
+    Objects.requireNonNull(name, "name");
+    Objects.requireNonNull(measures, "measures");
+    Objects.requireNonNull(recommendation, "recommendation");
+    Objects.requireNonNull(categories, "categories");
+    riskCoverage = List.copyOf(riskCoverage);
+    reliability = List.copyOf(reliability);
+    thresholds = List.copyOf(thresholds);
+  }
+}
