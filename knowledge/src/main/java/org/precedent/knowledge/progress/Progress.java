@@ -17,9 +17,10 @@ public final class Progress {
   private final String what;
   private final String unit;
   private final PrintStream out;
-  private final long startNanos = System.nanoTime();
   private long total = -1;
-  private long lastPrint = System.nanoTime();
+  /** Set by the first update, so that time spent before the work starts does not count. */
+  private long startNanos = -1;
+  private long lastPrint;
   private boolean printed;
 
   public Progress(String what, String unit, PrintStream out) {
@@ -46,6 +47,10 @@ public final class Progress {
   /** Reports {@code done} items, {@code share} (0..1, or NaN if unknown) of the work. */
   public void update(long done, double share) {
     long now = System.nanoTime();
+    if (startNanos < 0) {
+      startNanos = now;
+      lastPrint = now;
+    }
     if (out == null || now - lastPrint < INTERVAL_NANOS) {
       return;
     }

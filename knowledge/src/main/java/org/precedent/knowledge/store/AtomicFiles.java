@@ -27,6 +27,8 @@ public final class AtomicFiles {
     Files.createDirectories(dir);
     Path temp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
     try {
+      // Temporary files are created owner-only; the result is an ordinary file like any other.
+      setOrdinaryPermissions(temp);
       try (FileChannel channel = FileChannel.open(temp, StandardOpenOption.WRITE);
           OutputStream out = java.nio.channels.Channels.newOutputStream(channel)) {
         content.writeTo(out);
@@ -36,6 +38,15 @@ public final class AtomicFiles {
       move(temp, target);
     } finally {
       Files.deleteIfExists(temp);
+    }
+  }
+
+  private static void setOrdinaryPermissions(Path file) {
+    try {
+      Files.setPosixFilePermissions(file,
+          java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
+    } catch (UnsupportedOperationException | IOException e) {
+      // Not a POSIX file system: keep its default.
     }
   }
 

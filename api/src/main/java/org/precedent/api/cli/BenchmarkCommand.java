@@ -1,0 +1,20 @@
+package org.precedent.api.cli;
+
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Spec;
+
+@Command(name = "benchmark", mixinStandardHelpOptions = true,
+    description = "Measures Precedent's speed and prints the figures.",
+    subcommands = {RetrievalBenchmark.class})
+final class BenchmarkCommand implements Callable<Integer> {
+  @Spec
+  CommandSpec spec;
+
+  @Override
+  public Integer call() {
+    spec.commandLine().usage(spec.commandLine().getOut());
+    return 0;
+  }
+}

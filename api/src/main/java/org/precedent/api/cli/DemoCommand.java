@@ -1,0 +1,117 @@
+package org.precedent.api.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.group.AnswerGroup;
+import org.precedent.knowledge.group.AnswerGrouper;
+import org.precedent.knowledge.ingest.ColumnMapping;
+import org.precedent.knowledge.ingest.ExportFormat;
+import org.precedent.knowledge.ingest.IngestReport;
+import org.precedent.knowledge.ingest.Ingestor;
+import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.retrieve.Aggregation;
+import org.precedent.knowledge.retrieve.CandidateRecall;
+import org.precedent.knowledge.retrieve.RetrievalSettings;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
+import org.precedent.knowledge.ticket.Ticket;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParentCommand;
+import picocli.CommandLine.Spec;
+
+@Command(name = "demo", mixinStandardHelpOptions = true,
+    description = {"Runs Precedent on the bundled demo help desk (invented data): ingests its "
+        + "resolved tickets,", "builds the index, measures candidate recall on the held-out "
+        + "tickets and answers sample questions.",
+        "Its data directory defaults to ~/.precedent-demo, apart from your own."})
+final class DemoCommand implements Callable<Integer> {
+  @ParentCommand
+  PrecedentCommand parent;
+
+  @Spec
+  CommandSpec spec;
+
+  @Option(names = "--demo-data", paramLabel = "DIR",
+      description = "The demo tickets (default: demo-data/ of the Precedent checkout).")
+  Path demoData;
+
+  @Option(names = "--samples", paramLabel = "N", defaultValue = "4",
+      description = "Held-out questions answered as samples (default ${DEFAULT-VALUE}).")
+  int samples;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    Path dir = demoData != null ? demoData : defaultDemoData();
+    Path data = parent.data != null ? parent.data
+        : Path.of(System.getProperty("user.home"), ".precedent-demo");
+    out.println("Precedent demo: Tarnwick Vale Water & Waste, an invented utility help desk.");
+    out.println("demo tickets: " + dir + "   data directory: " + data);
+    out.flush();
+
+    ColumnMapping mapping = ColumnMapping.fromFile(dir.resolve("mapping.properties"), Map.of());
+    DataDir dataDir = new DataDir(data);
+    AnswerGrouper grouper = AnswerGrouper.standard();
+    Ingestor ingestor = new Ingestor(dataDir, TextCleaner.standard(), grouper);
+    Path history = dir.resolve("tickets.csv");
+    IngestReport report = ingestor.ingest(history, ExportFormat.CSV, mapping,
+        new Progress("reading tickets.csv", "rows", System.err),
+        new Progress("indexing", "tickets", System.err));
+    out.printf(Locale.ROOT, "%n[1] ingest: read %,d, stored %,d, updated %,d, rejected %,d%n",
+        report.read(), report.stored(), report.updated(), report.rejected());
+    out.printf(Locale.ROOT, "    %,d answer groups (%s), %,d one-off tickets%n",
+        report.groupSizes().size(), report.method(), report.oneOffs());
+
+    Ingestor.ParsedExport heldOut = ingestor.parse(dir.resolve("heldout.csv"), ExportFormat.CSV,
+        mapping, Progress.silent());
+    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
+      List<CandidateRecall.Case> cases = new ArrayList<>();
+      List<Ticket> answerable = new ArrayList<>();
+      for (Ticket t : heldOut.tickets()) {
+        Optional<AnswerGroup> right = grouper.match(knowledge.grouping(), t.reply());
+        if (right.isPresent()) {
+          cases.add(new CandidateRecall.Case(t.question(), right.get().id()));
+          answerable.add(t);
+        }
+      }
+      Map<Integer, Double> recall = CandidateRecall.measure(knowledge.retriever(), cases,
+          Aggregation.MAX_PLUS_SUPPORT);
+      out.printf(Locale.ROOT, "%n[2] held-out split: %,d tickets, %,d answered by a known answer "
+          + "group, %,d one-offs%n", heldOut.tickets().size(), cases.size(),
+          heldOut.tickets().size() - cases.size());
+      StringBuilder line = new StringBuilder("    BM25 candidate recall:");
+      recall.forEach((k, v) -> line.append(String.format(Locale.ROOT, "  @%d %.3f", k, v)));
+      out.println(line);
+
+      out.printf(Locale.ROOT, "%n[3] sample questions from the held-out split:%n%n");
+      RetrievalPrinter printer = new RetrievalPrinter(out, 160);
+      RetrievalSettings settings = RetrievalSettings.standard().withCandidates(3);
+      int step = Math.max(1, answerable.size() / Math.max(1, samples));
+      for (int i = 0; i < samples && i * step < answerable.size(); i++) {
+        printer.print(knowledge.retriever().retrieve(answerable.get(i * step).question(), settings));
+      }
+    }
+    out.println("Next: ./precedent ask --data " + data + " \"my bin was not collected\"");
+    return 0;
+  }
+
+  private static Path defaultDemoData() {
+    String home = System.getProperty("precedent.home");
+    Path dir = home != null ? Path.of(home, "demo-data") : Path.of("demo-data");
+    if (!Files.isDirectory(dir)) {
+      throw new IllegalStateException(dir.toAbsolutePath()
+          + ": demo data not found; pass --demo-data DIR");
+    }
+    return dir;
+  }
+}

@@ -1,0 +1,160 @@
+package org.precedent.api.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.group.AnswerGrouper;
+import org.precedent.knowledge.ingest.ColumnMapping;
+import org.precedent.knowledge.ingest.ExportFormat;
+import org.precedent.knowledge.ingest.IngestException;
+import org.precedent.knowledge.ingest.IngestReport;
+import org.precedent.knowledge.ingest.Ingestor;
+import org.precedent.knowledge.ingest.RowProblem;
+import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.store.DataDir;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParentCommand;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+@Command(name = "ingest", mixinStandardHelpOptions = true,
+    description = {"Stores resolved tickets from a CSV (RFC 4180, UTF-8) or JSON Lines export.",
+        "Tickets are cleaned and redacted first; a ticket id seen before is updated, not duplicated.",
+        "Which column holds what comes from --mapping FILE (key=column lines; keys: id, question,",
+        "subject, body, reply, label, category, created), from the column options, or from a",
+        "mapping.properties file beside the export.",
+        "Exit status: 0 all rows stored, 3 some rows rejected (the others stored), 1 nothing stored."})
+final class IngestCommand implements Callable<Integer> {
+  @ParentCommand
+  PrecedentCommand parent;
+
+  @Spec
+  CommandSpec spec;
+
+  @Parameters(paramLabel = "FILE", description = "The export to read.")
+  Path file;
+
+  @Option(names = "--format", paramLabel = "csv|jsonl",
+      description = "File format. Default: from the file name (.jsonl/.ndjson/.json: JSON Lines).")
+  String format;
+
+  @Option(names = "--mapping", paramLabel = "FILE", description = "Column mapping file.")
+  Path mappingFile;
+
+  @Option(names = "--id", paramLabel = "COLUMN", description = "Column of the ticket id "
+      + "(default: file name and line)")
+  String id;
+
+  @Option(names = "--question", paramLabel = "COLUMN", description = "Column of the whole question.")
+  String question;
+
+  @Option(names = "--subject", paramLabel = "COLUMN", description = "Column of the subject line.")
+  String subject;
+
+  @Option(names = "--body", paramLabel = "COLUMN", description = "Column of the message body.")
+  String body;
+
+  @Option(names = "--reply", paramLabel = "COLUMN", description = "Column of the agent's reply.")
+  String reply;
+
+  @Option(names = "--label", paramLabel = "COLUMN",
+      description = "Column of an answer-group label; the labels then define the groups.")
+  String label;
+
+  @Option(names = "--category", paramLabel = "COLUMN", description = "Column of a category.")
+  String category;
+
+  @Option(names = "--created", paramLabel = "COLUMN", description = "Column of the creation time.")
+  String created;
+
+  @Option(names = "--show-problems", paramLabel = "N", defaultValue = "20",
+      description = "Rejected rows listed at most (default ${DEFAULT-VALUE}; all are counted).")
+  int showProblems;
+
+  @Option(names = "--quiet", description = "No progress lines.")
+  boolean quiet;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    PrintWriter err = spec.commandLine().getErr();
+    ColumnMapping mapping;
+    try {
+      mapping = mapping();
+    } catch (IllegalArgumentException e) {
+      err.println("precedent ingest: " + e.getMessage());
+      return PrecedentCommand.FAILED;
+    }
+    ExportFormat exportFormat = format == null ? ExportFormat.of(file)
+        : ExportFormat.valueOf(format.toUpperCase(Locale.ROOT));
+    Ingestor ingestor = new Ingestor(new DataDir(parent.dataDir()), TextCleaner.standard(),
+        AnswerGrouper.standard());
+    IngestReport report;
+    try {
+      report = ingestor.ingest(file, exportFormat, mapping,
+          progress("reading " + file.getFileName(), "rows"), progress("indexing", "tickets"));
+    } catch (IngestException e) {
+      err.println("precedent ingest: " + e.getMessage());
+      err.println("nothing was stored; the data directory is as it was.");
+      return PrecedentCommand.FAILED;
+    }
+    print(report, out, err);
+    return report.rejected() > 0 ? PrecedentCommand.ROWS_REJECTED : 0;
+  }
+
+  private Progress progress(String what, String unit) {
+    return quiet ? Progress.silent() : new Progress(what, unit, System.err);
+  }
+
+  private ColumnMapping mapping() throws java.io.IOException {
+    Map<String, String> options = new LinkedHashMap<>();
+    options.put("id", id);
+    options.put("question", question);
+    options.put("subject", subject);
+    options.put("body", body);
+    options.put("reply", reply);
+    options.put("label", label);
+    options.put("category", category);
+    options.put("created", created);
+    Path mappingPath = mappingFile;
+    if (mappingPath == null && options.values().stream().allMatch(v -> v == null)) {
+      Path beside = file.toAbsolutePath().resolveSibling("mapping.properties");
+      if (Files.exists(beside)) {
+        mappingPath = beside;
+        spec.commandLine().getErr().println("using the column mapping in " + beside);
+      } else {
+        throw new IllegalArgumentException("say which column holds what: --mapping FILE, or "
+            + "--question COLUMN (or --subject/--body) and --reply COLUMN (or --label COLUMN)");
+      }
+    }
+    return mappingPath == null ? ColumnMapping.of(options)
+        : ColumnMapping.fromFile(mappingPath, options);
+  }
+
+  private void print(IngestReport r, PrintWriter out, PrintWriter err) {
+    for (int i = 0; i < Math.min(showProblems, r.problems().size()); i++) {
+      RowProblem p = r.problems().get(i);
+      err.println("rejected: " + p);
+    }
+    if (r.problems().size() > showProblems) {
+      err.printf(Locale.ROOT, "... and %,d more problems (--show-problems N lists more)%n",
+          r.problems().size() - showProblems);
+    }
+    out.printf(Locale.ROOT, "%s: read %,d, stored %,d, updated %,d, rejected %,d%n",
+        r.file(), r.read(), r.stored(), r.updated(), r.rejected());
+    out.printf(Locale.ROOT, "knowledge: %,d tickets, %,d answer groups, %,d one-off tickets%n",
+        r.totalTickets(), r.groupSizes().size(), r.oneOffs());
+    out.println("groups by " + r.method() + ":");
+    for (IngestReport.GroupSize g : r.groupSizes()) {
+      out.printf(Locale.ROOT, "  %-14s %5d  %-12s %s%n", g.id(), g.size(),
+          g.category() == null ? "-" : g.category(), Text.abbreviate(g.canonical(), 60));
+    }
+  }
+}

@@ -1,0 +1,47 @@
+package org.precedent.api.cli;
+
+import java.nio.file.Path;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ScopeType;
+
+/** The {@code precedent} command line: one entry point, one sub-command per job. */
+@Command(name = "precedent", mixinStandardHelpOptions = true, version = "precedent 0.1.0",
+    description = "Proposes past answers to new help-desk questions, learned from resolved tickets.",
+    subcommands = {IngestCommand.class, AskCommand.class, DemoCommand.class,
+        BenchmarkCommand.class, CommandLine.HelpCommand.class})
+public final class PrecedentCommand {
+  /** Exit status when some rows of an ingested file were rejected (the good rows are stored). */
+  static final int ROWS_REJECTED = 3;
+  /** Exit status when the command could not do its job at all. */
+  static final int FAILED = 1;
+
+  @Option(names = "--data", paramLabel = "DIR", scope = ScopeType.INHERIT,
+      description = "Where Precedent keeps its state (tickets, index, models). "
+          + "Default: $PRECEDENT_DATA, else ~/.precedent")
+  Path data;
+
+  Path dataDir() {
+    if (data != null) {
+      return data;
+    }
+    String env = System.getenv("PRECEDENT_DATA");
+    return env != null && !env.isBlank() ? Path.of(env)
+        : Path.of(System.getProperty("user.home"), ".precedent");
+  }
+
+  public static void main(String[] args) {
+    System.exit(run(args));
+  }
+
+  /** Runs the command line and returns its exit status, without exiting (for tests). */
+  public static int run(String... args) {
+    CommandLine cli = new CommandLine(new PrecedentCommand());
+    cli.setExecutionExceptionHandler((e, line, parsed) -> {
+      line.getErr().println("precedent: " + Messages.oneLine(e));
+      return FAILED;
+    });
+    return cli.execute(args);
+  }
+}

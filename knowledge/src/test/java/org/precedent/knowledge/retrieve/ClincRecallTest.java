@@ -1,0 +1,59 @@
+package org.precedent.knowledge.retrieve;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.group.AnswerGrouper;
+import org.precedent.knowledge.ingest.ColumnMapping;
+import org.precedent.knowledge.ingest.ExportFormat;
+import org.precedent.knowledge.ingest.Ingestor;
+import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
+import org.precedent.knowledge.testdata.Clinc150;
+
+/**
+ * Candidate recall@k of BM25 on the banking domain of CLINC150 (Larson et al. 2019): train split
+ * ingested as labelled tickets (columns text,category), test split asked.
+ */
+class ClincRecallTest {
+  @TempDir
+  Path tmp;
+
+  @Test
+  void bankingRecallMeetsItsFloors() throws Exception {
+    Clinc150 clinc = Clinc150.load();
+    Set<String> banking = clinc.intents("banking");
+    Path train = Clinc150.writeCsv(clinc.split("train", banking), tmp.resolve("banking.csv"));
+    DataDir data = new DataDir(tmp.resolve("data"));
+    new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard()).ingest(train,
+        ExportFormat.CSV, ColumnMapping.of(Map.of("question", "text", "label", "category")),
+        Progress.silent(), Progress.silent());
+
+    List<CandidateRecall.Case> cases = clinc.split("test", banking).stream()
+        .map(e -> new CandidateRecall.Case(TextCleaner.standard().cleanQuestion(e.query()),
+            e.intent()))
+        .toList();
+    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
+      for (Aggregation a : Aggregation.values()) {
+        System.out.println("CLINC150 banking test, BM25 " + a + " recall@k: "
+            + CandidateRecall.measure(k.retriever(), cases, a));
+      }
+      Map<Integer, Double> recall = CandidateRecall.measure(k.retriever(), cases,
+          Aggregation.MAX_PLUS_SUPPORT);
+      // Floors a few points under the measured values (see DEVELOPERS.md), so that a change that
+      // loses recall fails. Chance is 1/15 at k = 1. Only 15 groups exist, so recall@20 must be
+      // every question that shares a term with some training question.
+      assertTrue(recall.get(1) >= 0.75, "recall@1 " + recall);
+      assertTrue(recall.get(5) >= 0.93, "recall@5 " + recall);
+      assertTrue(recall.get(10) >= 0.97, "recall@10 " + recall);
+      assertTrue(recall.get(20) >= 0.98, "recall@20 " + recall);
+    }
+  }
+}
