@@ -47,12 +47,12 @@ class ClincRecallTest {
       }
       Map<Integer, Double> recall = CandidateRecall.measure(k.retriever(), cases,
           Aggregation.MAX_PLUS_SUPPORT);
-      // Floors a few points under the measured values (see DEVELOPERS.md), so that a change that
-      // loses recall fails. Chance is 1/15 at k = 1. Only 15 groups exist, so recall@20 must be
-      // every question that shares a term with some training question.
-      assertTrue(recall.get(1) >= 0.75, "recall@1 " + recall);
-      assertTrue(recall.get(5) >= 0.93, "recall@5 " + recall);
-      assertTrue(recall.get(10) >= 0.97, "recall@10 " + recall);
+      // Measured 0.860 / 0.989 / 1.000 / 1.000 at k = 1, 5, 10, 20 (DEVELOPERS.md). Floors a few
+      // points lower, so that a change that loses recall fails; chance at k = 1 is 1/15. With only
+      // 15 groups, recall@10 and @20 miss only questions that share no term with any past one.
+      assertTrue(recall.get(1) >= 0.82, "recall@1 " + recall);
+      assertTrue(recall.get(5) >= 0.96, "recall@5 " + recall);
+      assertTrue(recall.get(10) >= 0.98, "recall@10 " + recall);
       assertTrue(recall.get(20) >= 0.98, "recall@20 " + recall);
     }
   }
