@@ -62,7 +62,9 @@ final class RowValidator {
     }
     String rawQuestion = mapping.question() != null ? text(v, mapping.question())
         : join(text(v, mapping.subject()), text(v, mapping.body()));
-    String question = rawQuestion.isEmpty() ? "" : cleaner.cleanQuestion(rawQuestion);
+    // Subject and body are cleaned apart: a greeting opens the body, not the subject line.
+    String question = mapping.question() != null ? clean(text(v, mapping.question()))
+        : join(clean(text(v, mapping.subject())), clean(text(v, mapping.body())));
     if (rawQuestion.isEmpty()) {
       problems.add(problem(row, mapping.question() != null ? "question" : "subject/body", "empty"));
     } else if (question.isBlank()) {
@@ -94,6 +96,10 @@ final class RowValidator {
       return null;
     }
     return new Ticket(id, question, reply, label, category, created);
+  }
+
+  private String clean(String raw) {
+    return raw.isEmpty() ? "" : cleaner.cleanQuestion(raw);
   }
 
   /** A label in words: {@code pin_change} and {@code pin-change} become "pin change". */

@@ -5,7 +5,6 @@ import java.nio.file.Path;
 import java.util.Collection;
 import java.util.Map;
 import org.apache.lucene.analysis.Analyzer;
-import org.apache.lucene.analysis.en.EnglishAnalyzer;
 import org.apache.lucene.document.Document;
 import org.apache.lucene.document.Field;
 import org.apache.lucene.document.StoredField;
@@ -23,9 +22,10 @@ import org.precedent.knowledge.ticket.Ticket;
  *
  * <p>Fields, and why:
  * <ul>
- *   <li>{@code question}: the cleaned question, analysed for English (standard tokenizer, possessive
- *       removal, lower case, English stop words, Porter stemming) so that "bills", "billed" and
- *       "billing" meet; stored, to show and highlight evidence. Only questions are searched: a new
+ *   <li>{@code question}: the cleaned question, analysed for English by {@link QuestionAnalyzer}
+ *       (standard tokenizer, possessive removal, lower case, English stop words, Porter stemming)
+ *       so that "bills", "billed" and "billing" meet, with redaction placeholders left out; stored,
+ *       to show and highlight evidence. Only questions are searched: a new
  *       question is worded like past questions, not like the agents' answers.</li>
  *   <li>{@code id}, {@code group}, {@code category}: exact keywords, stored, not scored; {@code group}
  *       is empty for one-off tickets, which are shown as references but never proposed.</li>
@@ -45,7 +45,7 @@ public final class TicketIndex {
   private TicketIndex() {}
 
   static Analyzer analyzer() {
-    return new EnglishAnalyzer();
+    return new QuestionAnalyzer();
   }
 
   static BM25Similarity similarity() {
