@@ -86,7 +86,8 @@ public final class AtomicFiles {
     }
   }
 
-  private static void sync(Path file) throws IOException {
+  /** Forces a file's content to disk. */
+  public static void sync(Path file) throws IOException {
     try (var channel = java.nio.channels.FileChannel.open(file, java.nio.file.StandardOpenOption.WRITE)) {
       channel.force(true);
     }
