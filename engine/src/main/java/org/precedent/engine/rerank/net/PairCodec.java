@@ -1,7 +1,6 @@
 package org.precedent.engine.rerank.net;
 
 import java.util.Arrays;
-import java.util.List;
 import org.precedent.engine.rerank.tokens.Tokenizer;
 import org.precedent.engine.rerank.tokens.Vocabulary;
 
@@ -58,10 +57,6 @@ public final class PairCodec {
     int[] ids = vocabulary.ids(tokenizer.tokenize(text));
     boolean cut = ids.length > maxAnswerTokens;
     return new Encoded(cut ? Arrays.copyOf(ids, maxAnswerTokens) : ids, cut);
-  }
-
-  public List<String> tokens(String text) {
-    return tokenizer.tokenize(text);
   }
 
   private static Encoded withEnd(int[] ids, int max) {
