@@ -116,6 +116,15 @@ class ScorerTest {
   }
 
   @Test
+  void longAnswerIsCutToTheLimitAndFlagged() {
+    int max = model.config().maxAnswerTokens();
+    String longAnswer = String.join(" ", Collections.nCopies(max + 5, "refund"));
+    AnswerScore s = new Scorer(model).score(question, List.of(longAnswer)).get(0);
+    assertTrue(s.answerTruncated());
+    assertEquals(max + 1, s.tokens(), "the kept tokens plus the end token");
+  }
+
+  @Test
   void trainedModelPrefersTheAnswerItWasTaughtForAQuestion() {
     List<AnswerScore> scores = new Scorer(model).score("I forgot my password", TinyData.ANSWERS);
     int best = 0;
