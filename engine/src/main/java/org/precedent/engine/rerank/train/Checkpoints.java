@@ -86,6 +86,10 @@ final class Checkpoints {
     return restore(zip, withUpdater);
   }
 
+  boolean hasBest() {
+    return Files.isRegularFile(dir.resolve(BEST));
+  }
+
   ComputationGraph loadBest() {
     return restore(dir.resolve(BEST), false);
   }

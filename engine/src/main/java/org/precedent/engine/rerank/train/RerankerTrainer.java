@@ -111,7 +111,8 @@ public final class RerankerTrainer {
     Loop loop = new Loop(graph, checkpoints, new EpochPlan(split.train().size(), config), train, validation, state);
     TrainingState last = loop.run();
 
-    ComputationGraph best = checkpoints.loadBest();
+    // No best.zip means no epoch ever gave a finite validation loss; the last weights are all there is.
+    ComputationGraph best = checkpoints.hasBest() ? checkpoints.loadBest() : graph;
     RerankerModel model = new RerankerModel(best, vocabulary, config, 0);
     LambdaTuner.Choice choice = LambdaTuner.choose(model, split.validation(), pairs, config.seed());
     double seconds = last.trainingMillis() / 1000.0;
