@@ -1,0 +1,158 @@
+package org.precedent.engine.rerank;
+
+import java.io.IOException;
+import java.io.StringReader;
+import java.io.StringWriter;
+import java.util.Properties;
+
+/**
+ * Sizes and training settings of one reranker.
+ *
+ * @param embedding         token embedding width
+ * @param hidden            LSTM width of encoder and decoder (and of the attention projections)
+ * @param maxQuestionTokens question tokens kept; longer questions keep their first tokens
+ * @param maxAnswerTokens   answer tokens kept (before the end token)
+ * @param vocabCap          most vocabulary entries; the output softmax is this wide, so it dominates cost
+ * @param minCount          rarer tokens become unknown
+ * @param batchSize         pairs per training step
+ * @param learningRate      Adam step size
+ * @param maxEpochs         upper bound on passes over the training split
+ * @param patience          epochs without a better validation loss before stopping
+ * @param clipNorm          L2 norm above which each layer's gradient is scaled down
+ * @param seed              seeds weights, the validation split and every epoch's shuffle
+ * @param validationShare   share of pairs held out for early stopping and for choosing the anti-LM weight
+ * @param unconditionalShare share of pairs shown once more per epoch with an empty question, so the same
+ *                          network also learns P(answer) for the anti-LM term
+ */
+public record RerankerConfig(int embedding, int hidden, int maxQuestionTokens, int maxAnswerTokens, int vocabCap,
+    int minCount, int batchSize, double learningRate, int maxEpochs, int patience, double clipNorm, long seed,
+    double validationShare, double unconditionalShare) {
+
+  public RerankerConfig {
+    positive("embedding", embedding);
+    positive("hidden", hidden);
+    positive("maxQuestionTokens", maxQuestionTokens);
+    positive("maxAnswerTokens", maxAnswerTokens);
+    positive("batchSize", batchSize);
+    positive("maxEpochs", maxEpochs);
+    positive("patience", patience);
+    positive("minCount", minCount);
+    if (vocabCap < 5) {
+      throw new IllegalArgumentException("vocabCap must be at least 5, was " + vocabCap);
+    }
+    if (!(learningRate > 0) || !(clipNorm > 0)) {
+      throw new IllegalArgumentException("learningRate and clipNorm must be positive");
+    }
+    if (!(validationShare > 0 && validationShare < 1)) {
+      throw new IllegalArgumentException("validationShare must be in (0, 1), was " + validationShare);
+    }
+    if (!(unconditionalShare >= 0 && unconditionalShare <= 1)) {
+      throw new IllegalArgumentException("unconditionalShare must be in [0, 1], was " + unconditionalShare);
+    }
+  }
+
+  /**
+   * Defaults sized for a help desk's few thousand tickets on a two-core CPU. The output layer over the
+   * vocabulary takes most of the time, hence the cap of 4000 and a width of 128 (measured on this
+   * project's hardware; not from a published source).
+   */
+  public static RerankerConfig defaults() {
+    return new RerankerConfig(64, 128, 48, 48, 4000, 2, 32, 2e-3, 30, 3, 5.0, 42L, 0.1, 0.1);
+  }
+
+  public RerankerConfig withSizes(int embedding, int hidden) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  public RerankerConfig withEpochs(int maxEpochs, int patience) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  public RerankerConfig withBatchSize(int batchSize) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  public RerankerConfig withVocabulary(int vocabCap, int minCount) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  public RerankerConfig withSeed(long seed) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  public RerankerConfig withLearningRate(double learningRate) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  public RerankerConfig withMaxTokens(int maxQuestionTokens, int maxAnswerTokens) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  /** As properties text: the form kept beside a saved model. */
+  public String toProperties() {
+    Properties p = new Properties();
+    p.setProperty("embedding", Integer.toString(embedding));
+    p.setProperty("hidden", Integer.toString(hidden));
+    p.setProperty("maxQuestionTokens", Integer.toString(maxQuestionTokens));
+    p.setProperty("maxAnswerTokens", Integer.toString(maxAnswerTokens));
+    p.setProperty("vocabCap", Integer.toString(vocabCap));
+    p.setProperty("minCount", Integer.toString(minCount));
+    p.setProperty("batchSize", Integer.toString(batchSize));
+    p.setProperty("learningRate", Double.toString(learningRate));
+    p.setProperty("maxEpochs", Integer.toString(maxEpochs));
+    p.setProperty("patience", Integer.toString(patience));
+    p.setProperty("clipNorm", Double.toString(clipNorm));
+    p.setProperty("seed", Long.toString(seed));
+    p.setProperty("validationShare", Double.toString(validationShare));
+    p.setProperty("unconditionalShare", Double.toString(unconditionalShare));
+    StringWriter out = new StringWriter();
+    try {
+      p.store(out, "reranker configuration");
+    } catch (IOException e) {
+      throw new IllegalStateException(e);
+    }
+    return out.toString();
+  }
+
+  public static RerankerConfig fromProperties(String text) {
+    Properties p = new Properties();
+    try {
+      p.load(new StringReader(text));
+      return new RerankerConfig(i(p, "embedding"), i(p, "hidden"), i(p, "maxQuestionTokens"), i(p, "maxAnswerTokens"),
+          i(p, "vocabCap"), i(p, "minCount"), i(p, "batchSize"), d(p, "learningRate"), i(p, "maxEpochs"),
+          i(p, "patience"), d(p, "clipNorm"), Long.parseLong(req(p, "seed")), d(p, "validationShare"),
+          d(p, "unconditionalShare"));
+    } catch (IOException | NumberFormatException e) {
+      throw new IllegalArgumentException("unreadable reranker configuration: " + e.getMessage(), e);
+    }
+  }
+
+  private static int i(Properties p, String key) {
+    return Integer.parseInt(req(p, key));
+  }
+
+  private static double d(Properties p, String key) {
+    return Double.parseDouble(req(p, key));
+  }
+
+  private static String req(Properties p, String key) {
+    String v = p.getProperty(key);
+    if (v == null) {
+      throw new IllegalArgumentException("reranker configuration lacks '" + key + "'");
+    }
+    return v.trim();
+  }
+
+  private static void positive(String name, int value) {
+    if (value <= 0) {
+      throw new IllegalArgumentException(name + " must be positive, was " + value);
+    }
+  }
+}

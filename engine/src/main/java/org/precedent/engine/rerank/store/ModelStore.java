@@ -1,0 +1,222 @@
+package org.precedent.engine.rerank.store;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import java.io.IOException;
+import java.io.StringReader;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.DirectoryStream;
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.Properties;
+import java.util.regex.Pattern;
+import org.deeplearning4j.nn.graph.ComputationGraph;
+import org.deeplearning4j.util.ModelSerializer;
+import org.precedent.engine.rerank.ModelLoadException;
+import org.precedent.engine.rerank.RerankerConfig;
+import org.precedent.engine.rerank.RerankerModel;
+import org.precedent.engine.rerank.TrainedReranker;
+import org.precedent.engine.rerank.io.AtomicFiles;
+import org.precedent.engine.rerank.tokens.Vocabulary;
+
+/**
+ * Saved rerankers, one directory per version ({@code v-0001}, {@code v-0002}, ..) under a root, and an
+ * {@value #ACTIVE} file naming the one in use.
+ *
+ * <p>A version is written whole into a hidden temporary directory and renamed into place, so a crash
+ * never leaves a half-written version; {@value #ACTIVE} is switched by atomic rename too. Each version
+ * holds the weights ({@value #WEIGHTS}), the vocabulary, the settings with the anti-LM weight, the
+ * training metrics and data fingerprint, and a manifest of SHA-256 sums that loading checks first, so a
+ * truncated or damaged file is reported as such rather than as a confusing failure deep in DL4J.
+ */
+public final class ModelStore {
+
+  public static final String ACTIVE = "ACTIVE";
+  static final String WEIGHTS = "model.zip";
+  static final String VOCABULARY = "vocab.txt";
+  static final String CONFIG = "config.properties";
+  static final String METRICS = "metrics.json";
+  static final String MANIFEST = "manifest.properties";
+  private static final Pattern VERSION = Pattern.compile("v-\\d{4,}");
+
+  private final Path root;
+
+  public ModelStore(Path root) {
+    this.root = root;
+  }
+
+  /** Saves a trained reranker as the next version and makes it active. Returns the version name. */
+  public String save(TrainedReranker trained) throws IOException {
+    String version = write(trained);
+    activate(version);
+    return version;
+  }
+
+  /** Saves a trained reranker as the next version without activating it. */
+  public String write(TrainedReranker trained) throws IOException {
+    Files.createDirectories(root);
+    Path staging = Files.createTempDirectory(root, ".staging-");
+    try {
+      writeFiles(staging, trained);
+      while (true) {
+        String version = nextVersion();
+        try {
+          AtomicFiles.moveAtomically(staging, root.resolve(version));
+          return version;
+        } catch (FileAlreadyExistsException | java.nio.file.DirectoryNotEmptyException raced) {
+          // another writer took this number; try the next one
+        }
+      }
+    } finally {
+      deleteTree(staging);
+    }
+  }
+
+  public void activate(String version) throws IOException {
+    if (!Files.isDirectory(root.resolve(checkName(version)))) {
+      throw new ModelLoadException("no reranker version " + version + " under " + root);
+    }
+    AtomicFiles.writeString(root.resolve(ACTIVE), version + "\n");
+  }
+
+  public Optional<String> activeVersion() throws IOException {
+    Path pointer = root.resolve(ACTIVE);
+    if (!Files.isRegularFile(pointer)) {
+      return Optional.empty();
+    }
+    return Optional.of(checkName(Files.readString(pointer, StandardCharsets.UTF_8).trim()));
+  }
+
+  public List<String> versions() throws IOException {
+    List<String> out = new ArrayList<>();
+    if (Files.isDirectory(root)) {
+      try (DirectoryStream<Path> dirs = Files.newDirectoryStream(root, "v-*")) {
+        for (Path d : dirs) {
+          if (VERSION.matcher(d.getFileName().toString()).matches() && Files.isDirectory(d)) {
+            out.add(d.getFileName().toString());
+          }
+        }
+      }
+    }
+    out.sort(null);
+    return out;
+  }
+
+  public Path directory(String version) {
+    return root.resolve(checkName(version));
+  }
+
+  public RerankerModel loadActive() throws IOException {
+    return load(activeVersion().orElseThrow(() -> new ModelLoadException("no active reranker under " + root)));
+  }
+
+  /**
+   * Loads a version, checking every file against the manifest first.
+   *
+   * @throws ModelLoadException naming the file when one is missing, truncated or damaged, or when the
+   *     vocabulary does not fit the network
+   */
+  public RerankerModel load(String version) throws IOException {
+    Path dir = directory(version);
+    if (!Files.isDirectory(dir)) {
+      throw new ModelLoadException("no reranker version " + version + " under " + root);
+    }
+    Properties manifest = properties(dir.resolve(MANIFEST));
+    for (String file : List.of(WEIGHTS, VOCABULARY, CONFIG)) {
+      Path path = dir.resolve(file);
+      if (!Files.isRegularFile(path)) {
+        throw new ModelLoadException("reranker file " + path + " is missing");
+      }
+      if (!AtomicFiles.sha256(path).equals(manifest.getProperty(file))) {
+        throw new ModelLoadException("reranker file " + path + " is corrupt or truncated (checksum mismatch)");
+      }
+    }
+    return read(dir);
+  }
+
+  /** Reads a version's files without the manifest check (for tests and diagnostics of damaged files). */
+  static RerankerModel read(Path dir) throws IOException {
+    Vocabulary vocabulary;
+    try {
+      vocabulary = Vocabulary.load(dir.resolve(VOCABULARY));
+    } catch (IOException e) {
+      throw new ModelLoadException(e.getMessage(), e);
+    }
+    Properties config = properties(dir.resolve(CONFIG));
+    double lambda = Double.parseDouble(config.getProperty("antiLmLambda", "0"));
+    String text = Files.readString(dir.resolve(CONFIG), StandardCharsets.UTF_8);
+    ComputationGraph graph;
+    try {
+      graph = ModelSerializer.restoreComputationGraph(dir.resolve(WEIGHTS).toFile(), false);
+    } catch (Exception e) {
+      throw new ModelLoadException("cannot read reranker weights " + dir.resolve(WEIGHTS)
+          + ": the file is corrupt or truncated (" + e.getClass().getSimpleName() + ")", e);
+    }
+    return new RerankerModel(graph, vocabulary, RerankerConfig.fromProperties(text), lambda);
+  }
+
+  private static void writeFiles(Path dir, TrainedReranker trained) throws IOException {
+    RerankerModel model = trained.model();
+    ModelSerializer.writeModel(model.network(), dir.resolve(WEIGHTS).toFile(), false);
+    model.vocabulary().save(dir.resolve(VOCABULARY));
+    String config = model.config().toProperties() + "antiLmLambda=" + model.antiLmLambda() + "\n";
+    Files.writeString(dir.resolve(CONFIG), config, StandardCharsets.UTF_8);
+    Map<String, Object> metrics = new LinkedHashMap<>();
+    metrics.put("savedAt", Instant.now().toString());
+    metrics.put("dataSha256", trained.dataFingerprint());
+    metrics.put("metrics", trained.metrics());
+    String json = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(metrics);
+    Files.writeString(dir.resolve(METRICS), json, StandardCharsets.UTF_8);
+    Properties manifest = new Properties();
+    for (String file : List.of(WEIGHTS, VOCABULARY, CONFIG, METRICS)) {
+      AtomicFiles.sync(dir.resolve(file));
+      manifest.setProperty(file, AtomicFiles.sha256(dir.resolve(file)));
+    }
+    StringWriter out = new StringWriter();
+    manifest.store(out, "SHA-256 of each file of this reranker version");
+    AtomicFiles.writeString(dir.resolve(MANIFEST), out.toString());
+  }
+
+  private String nextVersion() throws IOException {
+    int max = 0;
+    for (String v : versions()) {
+      max = Math.max(max, Integer.parseInt(v.substring(2)));
+    }
+    return String.format("v-%04d", max + 1);
+  }
+
+  private static String checkName(String version) {
+    if (!VERSION.matcher(version).matches()) {
+      throw new ModelLoadException("not a reranker version name: '" + version + "'");
+    }
+    return version;
+  }
+
+  private static Properties properties(Path file) throws IOException {
+    if (!Files.isRegularFile(file)) {
+      throw new ModelLoadException("reranker file " + file + " is missing");
+    }
+    Properties p = new Properties();
+    p.load(new StringReader(Files.readString(file, StandardCharsets.UTF_8)));
+    return p;
+  }
+
+  private static void deleteTree(Path dir) throws IOException {
+    if (!Files.exists(dir)) {
+      return;
+    }
+    try (var paths = Files.walk(dir)) {
+      for (Path p : paths.sorted(java.util.Comparator.reverseOrder()).toList()) {
+        Files.deleteIfExists(p);
+      }
+    }
+  }
+}

@@ -1,0 +1,100 @@
+package org.precedent.engine.rerank.store;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.nio.channels.FileChannel;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.precedent.engine.rerank.AnswerScore;
+import org.precedent.engine.rerank.ModelLoadException;
+import org.precedent.engine.rerank.RerankerModel;
+import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.rerank.TinyData;
+import org.precedent.engine.rerank.TinyModel;
+import org.precedent.engine.rerank.TrainedReranker;
+import org.precedent.engine.rerank.tokens.Vocabulary;
+
+class ModelStoreTest {
+
+  private final TrainedReranker trained = TinyModel.get();
+  private final String question = "my card is blocked";
+
+  @Test
+  void savedModelScoresExactlyAsBefore(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    String version = store.save(trained);
+    assertEquals("v-0001", version);
+    assertEquals(version, store.activeVersion().orElseThrow());
+
+    RerankerModel loaded = store.loadActive();
+    assertEquals(trained.model().antiLmLambda(), loaded.antiLmLambda());
+    assertEquals(trained.model().config(), loaded.config());
+    List<AnswerScore> before = new Scorer(trained.model()).score(question, TinyData.ANSWERS);
+    List<AnswerScore> after = new Scorer(loaded).score(question, TinyData.ANSWERS);
+    assertEquals(before, after, "weights must survive saving bit for bit");
+
+    JsonNode metrics = new ObjectMapper().readTree(root.resolve(version).resolve(ModelStore.METRICS).toFile());
+    assertEquals(trained.dataFingerprint(), metrics.get("dataSha256").asText());
+    assertEquals(trained.metrics().epochs(), metrics.get("metrics").get("epochs").asInt());
+  }
+
+  @Test
+  void eachSaveIsANewVersionAndActiveSwitches(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    store.save(trained);
+    String second = store.save(trained);
+    assertEquals("v-0002", second);
+    assertEquals(List.of("v-0001", "v-0002"), store.versions());
+    assertEquals("v-0002", store.activeVersion().orElseThrow());
+    store.activate("v-0001");
+    assertEquals("v-0001", store.activeVersion().orElseThrow());
+    try (var files = Files.list(root)) {
+      assertTrue(files.noneMatch(p -> p.getFileName().toString().startsWith(".")), "no staging left behind");
+    }
+  }
+
+  @Test
+  void truncatedWeightsAreReportedAsSuch(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    String version = store.save(trained);
+    Path weights = root.resolve(version).resolve(ModelStore.WEIGHTS);
+    try (FileChannel ch = FileChannel.open(weights, StandardOpenOption.WRITE)) {
+      ch.truncate(ch.size() / 2);
+    }
+    ModelLoadException checked = assertThrows(ModelLoadException.class, () -> store.load(version));
+    assertTrue(checked.getMessage().contains("corrupt or truncated"), checked.getMessage());
+    assertTrue(checked.getMessage().contains(ModelStore.WEIGHTS), checked.getMessage());
+
+    // Even without the manifest's help, DL4J's failure on the cut zip comes out as the same clear error.
+    ModelLoadException unchecked = assertThrows(ModelLoadException.class, () -> ModelStore.read(root.resolve(version)));
+    assertTrue(unchecked.getMessage().contains("corrupt or truncated"), unchecked.getMessage());
+  }
+
+  @Test
+  void vocabularyOfAnotherSizeIsRefused(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    String version = store.save(trained);
+    Vocabulary other = Vocabulary.build(List.of(List.of("only", "a", "few", "words")), 100, 1);
+    other.save(root.resolve(version).resolve(ModelStore.VOCABULARY));
+
+    ModelLoadException viaManifest = assertThrows(ModelLoadException.class, () -> store.load(version));
+    assertTrue(viaManifest.getMessage().contains(ModelStore.VOCABULARY), viaManifest.getMessage());
+    ModelLoadException mismatch = assertThrows(ModelLoadException.class, () -> ModelStore.read(root.resolve(version)));
+    assertTrue(mismatch.getMessage().contains("vocabulary has 8 tokens but the model's embedding has "
+        + trained.model().vocabulary().size()), mismatch.getMessage());
+  }
+
+  @Test
+  void noActiveModelIsAClearError(@TempDir Path root) {
+    ModelLoadException e = assertThrows(ModelLoadException.class, () -> new ModelStore(root).loadActive());
+    assertTrue(e.getMessage().contains("no active reranker"), e.getMessage());
+  }
+}
