@@ -1,0 +1,55 @@
+/**
+ * Safety rules: which tickets Precedent must never answer on its own, however confident it is, and the caution the
+ * customer sees instead.
+ *
+ * <p>Where an answer could hurt someone (water that may be unsafe to drink, sewage, burst mains, gas, electricity,
+ * health, legal matters, disputed debts), a wrong or merely late automatic reply costs far more than a needless
+ * hand-off, so {@link org.precedent.engine.safety.SafetyPolicy#check} runs before the reply threshold and any
+ * finding means HAND_OFF. A ticket is human-only when
+ *
+ * <ul>
+ *   <li>a term rule matches the question (cleaned and redacted upstream). Matching ignores case, treats any run of
+ *       white space as one space and curly apostrophes as straight ones, and only matches whole words. Rules name a
+ *       situation ("brown water", "sewage coming up", "smell gas"), not a lone word, because lone words are shared
+ *       with routine questions: the brown bin, the sewerage line on a bill, a street called Kestrel Court. For the
+ *       same reason "court" alone is not a legal term; "take you to court" and "small claims" are;
+ *   <li>its category is human-only (categories compared in lower case); or
+ *   <li>the proposed answer group has been marked human-only by a manager.
+ * </ul>
+ *
+ * <p>Every caution ends by saying that a person will follow up and that local public-health notices and
+ * emergency-service instructions come first ({@link org.precedent.engine.safety.Cautions}).
+ *
+ * <h2>Policy file</h2>
+ *
+ * <p>UTF-8 text, one entry a line. Blank lines and lines starting with {@code #} are ignored (a {@code #} later in a
+ * line is part of it, so patterns may use it).
+ *
+ * <pre>
+ * emergency-line = 01632 960999           # cautions say "call our emergency line on 01632 960999"
+ * include-defaults = true                 # keep the built-in rules (the default when absent)
+ * human-only-category = safety            # repeatable; one word each
+ * human-only-group = a-1234abcd           # repeatable; one word each
+ * rule &lt;id&gt; | &lt;topic&gt; | &lt;pattern&gt;      # a term rule; the pattern is the rest of the line, '|' included
+ * caution &lt;topic&gt; | &lt;text&gt;              # the text for a topic; {emergency-line} is filled in
+ * </pre>
+ *
+ * <ul>
+ *   <li>Ids and topics are lower-case letters, digits, {@code .}, {@code _} and {@code -}. A pattern is a Java
+ *       regular expression, wrapped so that it matches whole words, case-insensitively, against the prepared
+ *       question; write single spaces between words.
+ *   <li>A file rule with the id of a built-in rule replaces it in its place; other rules are tried after the
+ *       built-in ones, in file order. The first rule that matches is reported.
+ *   <li>A rule's caution is the file's caution for its topic if there is one, else the built-in text for the topic,
+ *       else the general caution. The closing sentence is always added, so a file cannot leave it out.
+ *   <li>Without {@code emergency-line}, cautions say "our emergency line".
+ * </ul>
+ *
+ * <p>A wrong line (unknown setting, missing part, bad id, a pattern that does not compile, a setting or rule given
+ * twice, a caution for a topic no rule has) stops the load with an {@link java.io.IOException} whose message starts
+ * with {@code file:line:}, for example {@code safety.rules:12: bad pattern for rule burst-main: Unclosed group near
+ * index 17 of '...'}. Nothing is loaded from a bad file.
+ *
+ * <p>{@code demo-data/safety.rules} is the policy of the invented demo utility.
+ */
+package org.precedent.engine.safety;
