@@ -5,8 +5,11 @@ import java.io.InputStreamReader;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
-import java.util.Optional;
 import java.util.concurrent.Callable;
+import java.util.function.Consumer;
+import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.retrieve.RetrievalSettings;
 import org.precedent.knowledge.store.DataDir;
@@ -35,44 +38,64 @@ final class AskCommand implements Callable<Integer> {
       description = "Candidate answers shown (default ${DEFAULT-VALUE}).")
   int candidates;
 
+  @Option(names = "--category", paramLabel = "NAME",
+      description = "The ticket's category, if known (category thresholds and rules apply).")
+  String category;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     DataDir dataDir = new DataDir(parent.dataDir());
-    Optional<Knowledge> opened = Knowledge.open(dataDir);
-    if (opened.isEmpty()) {
+    if (dataDir.currentGeneration().isEmpty()) {
       spec.commandLine().getErr().println("precedent ask: no tickets in " + dataDir.root()
           + " yet: run 'precedent ingest FILE' first (or 'precedent demo')");
       return PrecedentCommand.FAILED;
     }
+    if (new ModelStore(dataDir.models()).activeVersion().isEmpty()) {
+      spec.commandLine().getErr().println("no trained model yet: showing BM25 candidates only "
+          + "('precedent train' adds the reranker, confidence and the reply-or-hand-off decision)");
+      return retrievalOnly(dataDir, out);
+    }
+    try (ActiveModel active = ActiveModel.open(dataDir)) {
+      Advisor advisor = active.advisor();
+      DecisionPrinter printer = new DecisionPrinter(out, candidates);
+      return eachQuestion(out, q -> printer.print(advisor.decide(q, category)));
+    }
+  }
+
+  private int retrievalOnly(DataDir dataDir, PrintWriter out) throws Exception {
     TextCleaner cleaner = TextCleaner.standard();
     RetrievalSettings settings = RetrievalSettings.standard().withCandidates(candidates);
     RetrievalPrinter printer = new RetrievalPrinter(out, 160);
-    try (Knowledge knowledge = opened.get()) {
-      if (words != null && !words.isEmpty()) {
-        printer.print(knowledge.retriever().retrieve(
-            cleaner.cleanQuestion(String.join(" ", words)), settings));
+    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
+      return eachQuestion(out, q -> printer.print(
+          knowledge.retriever().retrieve(cleaner.cleanQuestion(q), settings)));
+    }
+  }
+
+  /** Answers the question on the command line, or each line of standard input. */
+  private int eachQuestion(PrintWriter out, Consumer<String> answer) throws Exception {
+    if (words != null && !words.isEmpty()) {
+      answer.accept(String.join(" ", words));
+      return 0;
+    }
+    boolean console = System.console() != null;
+    BufferedReader in = new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8));
+    if (console) {
+      out.println("Type a question and press Enter; end with Ctrl-D.");
+    }
+    String line;
+    while (true) {
+      if (console) {
+        out.print("> ");
+        out.flush();
+      }
+      if ((line = in.readLine()) == null) {
         return 0;
       }
-      boolean console = System.console() != null;
-      BufferedReader in = new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8));
-      if (console) {
-        out.println("Type a question and press Enter; end with Ctrl-D.");
-      }
-      String line;
-      while (true) {
-        if (console) {
-          out.print("> ");
-          out.flush();
-        }
-        if ((line = in.readLine()) == null) {
-          break;
-        }
-        if (!line.isBlank()) {
-          printer.print(knowledge.retriever().retrieve(cleaner.cleanQuestion(line), settings));
-        }
+      if (!line.isBlank()) {
+        answer.accept(line);
       }
     }
-    return 0;
   }
 }

@@ -9,6 +9,12 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Callable;
+import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.learn.TeamModelTrainer;
+import org.precedent.engine.learn.TrainingReport;
+import org.precedent.engine.rerank.ModelLoadException;
+import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
@@ -19,7 +25,6 @@ import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.progress.Progress;
 import org.precedent.knowledge.retrieve.Aggregation;
 import org.precedent.knowledge.retrieve.CandidateRecall;
-import org.precedent.knowledge.retrieve.RetrievalSettings;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
@@ -45,9 +50,17 @@ final class DemoCommand implements Callable<Integer> {
       description = "The demo tickets (default: demo-data/ of the Precedent checkout).")
   Path demoData;
 
-  @Option(names = "--samples", paramLabel = "N", defaultValue = "4",
-      description = "Held-out questions answered as samples (default ${DEFAULT-VALUE}).")
-  int samples;
+  @Option(names = "--epochs", paramLabel = "N", defaultValue = "8",
+      description = "Most reranker training epochs (default ${DEFAULT-VALUE}).")
+  int epochs;
+
+  /** Invented questions: routine ones, a safety case, and one that no past answer covers. */
+  static final List<String> SAMPLES = List.of(
+      "Hi, my green bin wasn't emptied this morning, everyone else's was. Can someone come back?",
+      "How do I send you a meter reading? Thanks, Dana",
+      "The water coming out of my kitchen tap is brown. Is it safe to drink?",
+      "Can I pay my bill in instalments? I've lost my job.",
+      "Do you sponsor the Tarnwick village fete this summer?");
 
   @Override
   public Integer call() throws Exception {
@@ -76,12 +89,10 @@ final class DemoCommand implements Callable<Integer> {
         mapping, Progress.silent());
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
       List<CandidateRecall.Case> cases = new ArrayList<>();
-      List<Ticket> answerable = new ArrayList<>();
       for (Ticket t : heldOut.tickets()) {
         Optional<AnswerGroup> right = grouper.match(knowledge.grouping(), t.reply());
         if (right.isPresent()) {
           cases.add(new CandidateRecall.Case(t.question(), right.get().id()));
-          answerable.add(t);
         }
       }
       Map<Integer, Double> recall = CandidateRecall.measure(knowledge.retriever(), cases,
@@ -93,15 +104,53 @@ final class DemoCommand implements Callable<Integer> {
       recall.forEach((k, v) -> line.append(String.format(Locale.ROOT, "  @%d %.3f", k, v)));
       out.println(line);
 
-      out.printf(Locale.ROOT, "%n[3] sample questions from the held-out split:%n%n");
-      RetrievalPrinter printer = new RetrievalPrinter(out, 160);
-      RetrievalSettings settings = RetrievalSettings.standard().withCandidates(3);
-      int step = Math.max(1, answerable.size() / Math.max(1, samples));
-      for (int i = 0; i < samples && i * step < answerable.size(); i++) {
-        printer.print(knowledge.retriever().retrieve(answerable.get(i * step).question(), settings));
+    }
+
+    Files.copy(dir.resolve("safety.rules"), data.resolve("safety.rules"),
+        java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
+      TeamModelTrainer trainer = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
+          .withEpochs(epochs, RerankerConfig.defaults().patience())
+          .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), 32));
+      Optional<String> current = trainer.currentVersion(knowledge);
+      if (current.isPresent()) {
+        out.printf(Locale.ROOT, "%n[3] model %s is already trained on these tickets "
+            + "('precedent train --data %s' trains again)%n", current.get(), data);
+      } else {
+        out.printf(Locale.ROOT, "%n[3] training the reranker (up to %d epochs; progress below; "
+            + "interrupt and run again to resume)%n", epochs);
+        out.flush();
+        TrainingReport trained;
+        try {
+          trained = trainer.train(knowledge, true);
+        } catch (ModelLoadException e) {
+          out.println("    " + e.getMessage() + "; starting afresh");
+          trained = trainer.train(knowledge, false);
+        }
+        out.println("    model " + trained.version() + " is active");
+        out.println(trained.summary().indent(4).stripTrailing());
+      }
+    }
+
+    out.printf(Locale.ROOT, "%n[4] evaluation on the held-out split%n");
+    out.flush();
+    try (ActiveModel active = ActiveModel.open(dataDir)) {
+      EvaluateCommand.Evaluation evaluation = EvaluateCommand.evaluate(active, heldOut,
+          "demo held-out split", 0.95, data.resolve("reports"), null);
+      EvaluateCommand.print(out, evaluation);
+      EvaluateCommand.applyThreshold(out, dataDir, active, evaluation.report());
+    }
+
+    out.printf(Locale.ROOT, "%n[5] decisions for sample questions%n%n");
+    try (ActiveModel active = ActiveModel.open(dataDir)) {
+      Advisor advisor = active.advisor();
+      DecisionPrinter printer = new DecisionPrinter(out, 2);
+      for (String q : SAMPLES) {
+        printer.print(advisor.decide(q, null));
       }
     }
     out.println("Next: ./precedent ask --data " + data + " \"my bin was not collected\"");
+    out.println("      the evaluation report is in " + data.resolve("reports"));
     return 0;
   }
 

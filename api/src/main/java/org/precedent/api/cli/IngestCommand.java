@@ -1,11 +1,8 @@
 package org.precedent.api.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.LinkedHashMap;
 import java.util.Locale;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGrouper;
@@ -18,6 +15,7 @@ import org.precedent.knowledge.ingest.RowProblem;
 import org.precedent.knowledge.progress.Progress;
 import org.precedent.knowledge.store.DataDir;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParentCommand;
@@ -45,34 +43,8 @@ final class IngestCommand implements Callable<Integer> {
       description = "File format. Default: from the file name (.jsonl/.ndjson/.json: JSON Lines).")
   String format;
 
-  @Option(names = "--mapping", paramLabel = "FILE", description = "Column mapping file.")
-  Path mappingFile;
-
-  @Option(names = "--id", paramLabel = "COLUMN", description = "Column of the ticket id "
-      + "(default: file name and line)")
-  String id;
-
-  @Option(names = "--question", paramLabel = "COLUMN", description = "Column of the whole question.")
-  String question;
-
-  @Option(names = "--subject", paramLabel = "COLUMN", description = "Column of the subject line.")
-  String subject;
-
-  @Option(names = "--body", paramLabel = "COLUMN", description = "Column of the message body.")
-  String body;
-
-  @Option(names = "--reply", paramLabel = "COLUMN", description = "Column of the agent's reply.")
-  String reply;
-
-  @Option(names = "--label", paramLabel = "COLUMN",
-      description = "Column of an answer-group label; the labels then define the groups.")
-  String label;
-
-  @Option(names = "--category", paramLabel = "COLUMN", description = "Column of a category.")
-  String category;
-
-  @Option(names = "--created", paramLabel = "COLUMN", description = "Column of the creation time.")
-  String created;
+  @Mixin
+  ColumnOptions columns;
 
   @Option(names = "--show-problems", paramLabel = "N", defaultValue = "20",
       description = "Rejected rows listed at most (default ${DEFAULT-VALUE}; all are counted).")
@@ -87,7 +59,7 @@ final class IngestCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     ColumnMapping mapping;
     try {
-      mapping = mapping();
+      mapping = columns.mapping(file, spec);
     } catch (IllegalArgumentException e) {
       err.println("precedent ingest: " + e.getMessage());
       return PrecedentCommand.FAILED;
@@ -111,31 +83,6 @@ final class IngestCommand implements Callable<Integer> {
 
   private Progress progress(String what, String unit) {
     return quiet ? Progress.silent() : new Progress(what, unit, System.err);
-  }
-
-  private ColumnMapping mapping() throws java.io.IOException {
-    Map<String, String> options = new LinkedHashMap<>();
-    options.put("id", id);
-    options.put("question", question);
-    options.put("subject", subject);
-    options.put("body", body);
-    options.put("reply", reply);
-    options.put("label", label);
-    options.put("category", category);
-    options.put("created", created);
-    Path mappingPath = mappingFile;
-    if (mappingPath == null && options.values().stream().allMatch(v -> v == null)) {
-      Path beside = file.toAbsolutePath().resolveSibling("mapping.properties");
-      if (Files.exists(beside)) {
-        mappingPath = beside;
-        spec.commandLine().getErr().println("using the column mapping in " + beside);
-      } else {
-        throw new IllegalArgumentException("say which column holds what: --mapping FILE, or "
-            + "--question COLUMN (or --subject/--body) and --reply COLUMN (or --label COLUMN)");
-      }
-    }
-    return mappingPath == null ? ColumnMapping.of(options)
-        : ColumnMapping.fromFile(mappingPath, options);
   }
 
   private void print(IngestReport r, PrintWriter out, PrintWriter err) {

@@ -9,7 +9,8 @@ import picocli.CommandLine.ScopeType;
 /** The {@code precedent} command line: one entry point, one sub-command per job. */
 @Command(name = "precedent", mixinStandardHelpOptions = true, version = "precedent 0.1.0",
     description = "Proposes past answers to new help-desk questions, learned from resolved tickets.",
-    subcommands = {IngestCommand.class, AskCommand.class, DemoCommand.class,
+    subcommands = {IngestCommand.class, AskCommand.class, TrainCommand.class, EvaluateCommand.class,
+        DemoCommand.class,
         BenchmarkCommand.class, CommandLine.HelpCommand.class})
 public final class PrecedentCommand {
   /** Exit status when some rows of an ingested file were rejected (the good rows are stored). */

@@ -18,10 +18,10 @@ import java.util.Set;
  * system property {@code precedent.datasets}. Each query becomes a question and its intent, in words
  * ({@code pin_change} -> "pin change"), the answer.
  */
-record ClincDomain(List<String> answers, List<TrainingPair> train, List<TrainingPair> validation,
+public record ClincDomain(List<String> answers, List<TrainingPair> train, List<TrainingPair> validation,
     List<TrainingPair> test) {
 
-  static ClincDomain load(String domain) throws IOException {
+  public static ClincDomain load(String domain) throws IOException {
     String root = System.getProperty("precedent.datasets");
     assertTrue(root != null, "set -Dprecedent.datasets to the shared datasets folder");
     Path dir = Path.of(root, "clinc150");
@@ -36,7 +36,15 @@ record ClincDomain(List<String> answers, List<TrainingPair> train, List<Training
         pairs(data.get("test"), intents));
   }
 
-  static String words(String intent) {
+  /** The out-of-scope queries of a split ("oos_val", "oos_test"), which no intent answers. */
+  public static List<String> outOfScope(String split) throws IOException {
+    Path dir = Path.of(System.getProperty("precedent.datasets"), "clinc150");
+    Map<String, List<List<String>>> data = new ObjectMapper().readValue(
+        dir.resolve("data_full.json").toFile(), new TypeReference<>() {});
+    return data.get(split).stream().map(row -> row.get(0)).toList();
+  }
+
+  public static String words(String intent) {
     return intent.replace('_', ' ');
   }
 

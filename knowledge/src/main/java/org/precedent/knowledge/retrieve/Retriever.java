@@ -69,6 +69,14 @@ public final class Retriever implements Closeable {
   }
 
   public Retrieval retrieve(String question, RetrievalSettings settings) {
+    return retrieve(question, settings, null);
+  }
+
+  /**
+   * Retrieval as if the past ticket {@code excludedTicket} were not stored: used to ask a stored
+   * ticket's question without it finding itself (leave-one-out validation).
+   */
+  public Retrieval retrieve(String question, RetrievalSettings settings, String excludedTicket) {
     List<String> allTerms = terms(question);
     boolean truncated = allTerms.size() > MAX_QUERY_TERMS;
     List<String> terms = truncated ? allTerms.subList(0, MAX_QUERY_TERMS) : allTerms;
@@ -78,6 +86,9 @@ public final class Retriever implements Closeable {
     BooleanQuery.Builder query = new BooleanQuery.Builder();
     for (String term : terms) {
       query.add(new TermQuery(new Term(TicketIndex.QUESTION, term)), BooleanClause.Occur.SHOULD);
+    }
+    if (excludedTicket != null) {
+      query.add(new TermQuery(new Term(TicketIndex.ID, excludedTicket)), BooleanClause.Occur.MUST_NOT);
     }
     try {
       ScoreDoc[] hits = searcher.search(query.build(), settings.depth()).scoreDocs;

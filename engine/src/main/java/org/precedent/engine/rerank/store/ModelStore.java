@@ -110,6 +110,16 @@ public final class ModelStore {
     return out;
   }
 
+  /** The SHA-256 of the training pairs a version was trained on, as recorded when it was saved. */
+  public Optional<String> dataFingerprint(String version) throws IOException {
+    Path metrics = directory(version).resolve(METRICS);
+    if (!Files.isRegularFile(metrics)) {
+      return Optional.empty();
+    }
+    var node = new ObjectMapper().readTree(metrics.toFile()).get("dataSha256");
+    return node == null ? Optional.empty() : Optional.of(node.asText());
+  }
+
   public Path directory(String version) {
     return root.resolve(checkName(version));
   }

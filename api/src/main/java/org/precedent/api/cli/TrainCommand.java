@@ -1,0 +1,74 @@
+package org.precedent.api.cli;
+
+import java.io.PrintWriter;
+import java.util.Locale;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import org.precedent.engine.learn.TeamModelTrainer;
+import org.precedent.engine.learn.TrainingReport;
+import org.precedent.engine.rerank.RerankerConfig;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParentCommand;
+import picocli.CommandLine.Spec;
+
+@Command(name = "train", mixinStandardHelpOptions = true,
+    description = {"Trains the reranker on the stored tickets, then fits fusion and calibration on",
+        "tickets kept apart, and makes the result the active model version.",
+        "Checkpoints are written as it goes; --resume continues an interrupted run."})
+final class TrainCommand implements Callable<Integer> {
+  @ParentCommand
+  PrecedentCommand parent;
+
+  @Spec
+  CommandSpec spec;
+
+  @Option(names = "--resume", description = "Continue the last interrupted run.")
+  boolean resume;
+
+  @Option(names = "--epochs", paramLabel = "N", description = "Most epochs (default ${DEFAULT-VALUE}).",
+      defaultValue = "12")
+  int epochs;
+
+  @Option(names = "--hidden", paramLabel = "N", description = "LSTM size (default ${DEFAULT-VALUE}).",
+      defaultValue = "128")
+  int hidden;
+
+  @Option(names = "--embedding", paramLabel = "N",
+      description = "Word embedding size (default ${DEFAULT-VALUE}).", defaultValue = "64")
+  int embedding;
+
+  @Option(names = "--vocabulary", paramLabel = "N",
+      description = "Most words in the vocabulary (default ${DEFAULT-VALUE}).", defaultValue = "4000")
+  int vocabulary;
+
+  @Option(names = "--answer-tokens", paramLabel = "N",
+      description = "Answer tokens scored at most (default ${DEFAULT-VALUE}).", defaultValue = "32")
+  int answerTokens;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    DataDir dataDir = new DataDir(parent.dataDir());
+    Optional<Knowledge> opened = Knowledge.open(dataDir);
+    if (opened.isEmpty()) {
+      spec.commandLine().getErr().println("precedent train: no tickets in " + dataDir.root()
+          + " yet: run 'precedent ingest FILE' first");
+      return PrecedentCommand.FAILED;
+    }
+    RerankerConfig config = RerankerConfig.defaults().withSizes(embedding, hidden)
+        .withVocabulary(vocabulary, RerankerConfig.defaults().minCount())
+        .withEpochs(epochs, RerankerConfig.defaults().patience())
+        .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens);
+    try (Knowledge knowledge = opened.get()) {
+      TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
+      out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),
+          dataDir.models().resolve(report.version()));
+      out.println(report.summary());
+    }
+    return 0;
+  }
+}

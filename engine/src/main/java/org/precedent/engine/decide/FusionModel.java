@@ -1,0 +1,52 @@
+package org.precedent.engine.decide;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
+import org.precedent.knowledge.store.AtomicFiles;
+
+/**
+ * The fitted fusion and calibration of a model version, one {@link SystemModel} per scoring system,
+ * saved as {@code fusion.json} beside the reranker's weights.
+ *
+ * @param systems    the three systems' fitted parts
+ * @param validation what the fit measured on the fusion split, per system, for reports
+ */
+public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Double>> validation) {
+  static final String FILE = "fusion.json";
+  private static final ObjectMapper JSON = new ObjectMapper();
+
+  public FusionModel {
+    systems = List.copyOf(systems);
+    validation = Map.copyOf(validation);
+    for (ScoringSystem s : ScoringSystem.values()) {
+      if (systems.stream().noneMatch(m -> m.system() == s)) {
+        throw new IllegalArgumentException("fusion model lacks the " + s + " system");
+      }
+    }
+  }
+
+  public SystemModel system(ScoringSystem s) {
+    return systems.stream().filter(m -> m.system() == s).findFirst().orElseThrow();
+  }
+
+  public void save(Path versionDir) throws IOException {
+    AtomicFiles.write(versionDir.resolve(FILE),
+        out -> out.write(JSON.writerWithDefaultPrettyPrinter().writeValueAsBytes(this)));
+  }
+
+  public static FusionModel load(Path versionDir) throws IOException {
+    Path file = versionDir.resolve(FILE);
+    if (!Files.exists(file)) {
+      throw new IOException(file + ": missing; this model version was not finished (train again)");
+    }
+    try {
+      return JSON.readValue(file.toFile(), FusionModel.class);
+    } catch (IOException | IllegalArgumentException e) {
+      throw new IOException(file + ": unreadable fusion model: " + e.getMessage(), e);
+    }
+  }
+}

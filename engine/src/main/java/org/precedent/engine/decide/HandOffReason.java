@@ -1,0 +1,13 @@
+package org.precedent.engine.decide;
+
+/** Why a question went to a person. */
+public enum HandOffReason {
+  /** No past answer is close enough to propose anything. */
+  NO_CANDIDATE,
+  /** The question or its best answer falls under a safety rule. */
+  SAFETY_RULE,
+  /** The best answer group, or the ticket's category, is marked for people only. */
+  HUMAN_ONLY,
+  /** The confidence is below the threshold in force. */
+  BELOW_THRESHOLD
+}

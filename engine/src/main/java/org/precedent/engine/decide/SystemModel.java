@@ -1,0 +1,31 @@
+package org.precedent.engine.decide;
+
+import java.util.List;
+import java.util.Objects;
+import org.precedent.engine.fusion.LogisticModel;
+import org.precedent.engine.fusion.PlattCalibrator;
+
+/**
+ * One scoring system's fitted parts: a logistic model of "this candidate is the right answer" over
+ * the system's features, and the Platt calibration of its top candidate's logit.
+ *
+ * @param system      which system
+ * @param model       P(candidate right | features), fitted on the fusion split
+ * @param calibration maps the top candidate's logit to P(top candidate right), fitted out of fold
+ */
+public record SystemModel(ScoringSystem system, LogisticModel model, PlattCalibrator calibration) {
+  public SystemModel {
+    Objects.requireNonNull(system, "system");
+    Objects.requireNonNull(model, "model");
+    Objects.requireNonNull(calibration, "calibration");
+    if (!model.featureNames().equals(system.features())) {
+      throw new IllegalArgumentException("the " + system + " model was fitted on features "
+          + model.featureNames() + ", expected " + system.features());
+    }
+  }
+
+  /** Feature names, as the system uses them. */
+  public List<String> features() {
+    return system.features();
+  }
+}

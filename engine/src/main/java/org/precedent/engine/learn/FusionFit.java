@@ -1,0 +1,88 @@
+package org.precedent.engine.learn;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.precedent.engine.decide.CandidateScoring;
+import org.precedent.engine.decide.FusionModel;
+import org.precedent.engine.decide.ScoringSystem;
+import org.precedent.engine.decide.SystemModel;
+import org.precedent.engine.rerank.Scorer;
+import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.retrieve.Retriever;
+
+/**
+ * Fits fusion and calibration on questions kept apart from reranker training: each is asked as a
+ * new question (a stored ticket leaving itself out of retrieval), its candidates scored, and each
+ * candidate labelled right when it is the question's own answer group. Questions no group answers
+ * (one-offs, out of scope) have no right candidate, so the fit learns to be unsure of them.
+ */
+public final class FusionFit {
+  private final FusionModel model;
+
+  private FusionFit(FusionModel model) {
+    this.model = model;
+  }
+
+  public static FusionFit fit(Retriever retriever, Scorer scorer, List<FusionQuestion> fusionQuestions) {
+    List<LabelledQuestion> questions = new ArrayList<>();
+    Progress progress = new Progress("scoring the fusion split", "tickets", System.err)
+        .total(fusionQuestions.size());
+    for (FusionQuestion q : fusionQuestions) {
+      CandidateScoring scoring = CandidateScoring.of(retriever, scorer, q.question(),
+          q.stored() ? q.ticketId() : null);
+      questions.add(new LabelledQuestion(q.ticketId(), q.rightGroup(), scoring));
+      progress.update(questions.size());
+    }
+    progress.finish(questions.size());
+    List<SystemModel> systems = new ArrayList<>();
+    Map<String, Map<String, Double>> validation = new LinkedHashMap<>();
+    for (ScoringSystem system : ScoringSystem.values()) {
+      SystemFit fit = SystemFit.fit(system, questions);
+      systems.add(fit.model());
+      validation.put(system.name(), fit.validation());
+    }
+    return new FusionFit(new FusionModel(systems, validation));
+  }
+
+  public void save(Path versionDir) throws IOException {
+    model.save(versionDir);
+  }
+
+  public FusionModel model() {
+    return model;
+  }
+
+  public String summary() {
+    StringBuilder s = new StringBuilder("fusion split, out of fold:");
+    model.validation().forEach((system, figures) -> {
+      s.append(String.format(Locale.ROOT, "%n  %-8s", system));
+      figures.forEach((k, v) -> s.append(String.format(Locale.ROOT, "  %s %.3f", k, v)));
+    });
+    SystemModel fused = model.system(ScoringSystem.FUSED);
+    s.append("\nfused weights (original units):");
+    double[] w = fused.model().weightsInOriginalUnits();
+    for (int i = 0; i < w.length; i++) {
+      s.append(String.format(Locale.ROOT, " %s %+.3f", fused.features().get(i), w[i]));
+    }
+    s.append(String.format(Locale.ROOT, "%nPlatt calibration of the fused logit: A %.3f, B %.3f",
+        fused.calibration().a(), fused.calibration().b()));
+    return s.toString();
+  }
+
+  /**
+   * A question of the fusion split with its scored candidates.
+   *
+   * @param rightGroup the ticket's own answer group, or null for a one-off
+   */
+  record LabelledQuestion(String ticketId, String rightGroup, CandidateScoring scoring) {
+    boolean isRight(int candidate) {
+      return rightGroup != null
+          && scoring.candidates().get(candidate).group().id().equals(rightGroup);
+    }
+  }
+}

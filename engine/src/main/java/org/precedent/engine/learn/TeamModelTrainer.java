@@ -1,0 +1,95 @@
+package org.precedent.engine.learn;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.precedent.engine.rerank.RerankerConfig;
+import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.rerank.TrainedReranker;
+import org.precedent.engine.rerank.TrainingPair;
+import org.precedent.engine.rerank.store.ModelStore;
+import org.precedent.engine.rerank.train.RerankerTrainer;
+import org.precedent.knowledge.group.AnswerGroup;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
+import org.precedent.knowledge.ticket.Ticket;
+
+/**
+ * Trains a team's model from its stored tickets: the reranker on most grouped tickets, then fusion
+ * and calibration on the tickets kept apart ({@link Splits}), one-offs included as questions no
+ * answer covers. Writes one model version and makes it active.
+ */
+public final class TeamModelTrainer {
+  private final DataDir dataDir;
+  private final RerankerConfig config;
+
+  public TeamModelTrainer(DataDir dataDir, RerankerConfig config) {
+    this.dataDir = dataDir;
+    this.config = config;
+  }
+
+  /** Training pairs: each grouped ticket outside the fusion split, with its group's answer. */
+  public static List<TrainingPair> rerankerPairs(Knowledge knowledge) {
+    Map<String, String> groupOf = knowledge.grouping().groupOfTicket();
+    Map<String, AnswerGroup> groups = knowledge.grouping().byId();
+    List<TrainingPair> pairs = new ArrayList<>();
+    for (Ticket t : knowledge.tickets().values()) {
+      String group = groupOf.get(t.id());
+      if (group != null && !Splits.isFusionTicket(t.id())) {
+        pairs.add(new TrainingPair(t.question(), groups.get(group).canonical()));
+      }
+    }
+    return pairs;
+  }
+
+  /** The fusion split: every stored ticket kept apart from reranker training, one-offs too. */
+  public static List<FusionQuestion> fusionQuestions(Knowledge knowledge) {
+    Map<String, String> groupOf = knowledge.grouping().groupOfTicket();
+    return knowledge.tickets().values().stream().filter(t -> Splits.isFusionTicket(t.id()))
+        .map(t -> new FusionQuestion(t.id(), t.question(), groupOf.get(t.id()), true)).toList();
+  }
+
+  /**
+   * The active model version, if it was trained on exactly the reranker pairs the knowledge gives
+   * now and was finished (fusion fitted): then training again would change nothing.
+   */
+  public java.util.Optional<String> currentVersion(Knowledge knowledge) throws IOException {
+    ModelStore store = new ModelStore(dataDir.models());
+    java.util.Optional<String> active = store.activeVersion();
+    if (active.isEmpty()
+        || !java.nio.file.Files.exists(store.directory(active.get()).resolve("fusion.json"))) {
+      return java.util.Optional.empty();
+    }
+    String fingerprint = org.precedent.engine.rerank.train.DataFingerprint.of(
+        rerankerPairs(knowledge));
+    return store.dataFingerprint(active.get()).filter(fingerprint::equals).map(f -> active.get());
+  }
+
+  /** Trains on the knowledge's own split ({@link Splits}). */
+  public TrainingReport train(Knowledge knowledge, boolean resume) throws IOException {
+    return train(knowledge, rerankerPairs(knowledge), fusionQuestions(knowledge), resume);
+  }
+
+  /**
+   * Trains the reranker on {@code pairs}, fits fusion on {@code fusion}, writes a version and
+   * makes it active.
+   */
+  public TrainingReport train(Knowledge knowledge, List<TrainingPair> pairs,
+      List<FusionQuestion> fusion, boolean resume) throws IOException {
+    if (pairs.size() < 20) {
+      throw new IllegalStateException("only " + pairs.size() + " tickets with a reused answer to "
+          + "train on; ingest more resolved tickets first");
+    }
+    Path work = dataDir.models().resolve("training");
+    RerankerTrainer trainer = new RerankerTrainer(config, work);
+    TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
+    ModelStore store = new ModelStore(dataDir.models());
+    String version = store.write(trained);
+    FusionFit fit = FusionFit.fit(knowledge.retriever(), new Scorer(trained.model()), fusion);
+    fit.save(store.directory(version));
+    store.activate(version);
+    return new TrainingReport(version, trained.metrics(), fit.summary());
+  }
+}

@@ -1,0 +1,22 @@
+package org.precedent.engine.learn;
+
+import java.util.Locale;
+import org.precedent.engine.rerank.TrainingMetrics;
+
+/**
+ * What one training run produced.
+ *
+ * @param version       the model version written and made active
+ * @param reranker      the reranker's training figures
+ * @param fusionSummary the fitted fusion and calibration, in words
+ */
+public record TrainingReport(String version, TrainingMetrics reranker, String fusionSummary) {
+  public String summary() {
+    return String.format(Locale.ROOT, "reranker: %d pairs trained, %d validation, %d epochs in %.0f s, "
+            + "%.0f target tokens/s, validation loss %.3f, anti-LM lambda %.1f, validation top-1 %.3f%n%s",
+        reranker.trainPairs(), reranker.validationPairs(), reranker.epochs(),
+        reranker.trainingMillis() / 1000.0, reranker.targetTokensPerSecond(),
+        reranker.validationLoss(), reranker.antiLmLambda(), reranker.validationTop1(),
+        fusionSummary);
+  }
+}
