@@ -7,7 +7,7 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "benchmark", mixinStandardHelpOptions = true,
     description = "Measures Precedent's speed and prints the figures.",
-    subcommands = {RetrievalBenchmark.class})
+    subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class})
 final class BenchmarkCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;

@@ -49,6 +49,10 @@ final class TrainCommand implements Callable<Integer> {
       description = "Answer tokens scored at most (default ${DEFAULT-VALUE}).", defaultValue = "32")
   int answerTokens;
 
+  @Option(names = "--learning-rate", paramLabel = "R",
+      description = "Adam learning rate (default ${DEFAULT-VALUE}).", defaultValue = "0.002")
+  double learningRate;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -62,7 +66,8 @@ final class TrainCommand implements Callable<Integer> {
     RerankerConfig config = RerankerConfig.defaults().withSizes(embedding, hidden)
         .withVocabulary(vocabulary, RerankerConfig.defaults().minCount())
         .withEpochs(epochs, RerankerConfig.defaults().patience())
-        .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens);
+        .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
+        .withLearningRate(learningRate);
     try (Knowledge knowledge = opened.get()) {
       TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
       out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),

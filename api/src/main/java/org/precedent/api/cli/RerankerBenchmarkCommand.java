@@ -1,0 +1,26 @@
+package org.precedent.api.cli;
+
+import java.util.concurrent.Callable;
+import org.precedent.engine.rerank.bench.RerankerBenchmark;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+@Command(name = "reranker", mixinStandardHelpOptions = true,
+    description = {"Reports the reranker's training target tokens/s and its latency to score 10",
+        "candidates (p50, p99) at the default size, with the machine's ND4J matrix-multiply rate",
+        "(GFLOP/s) and the share of it the reranker achieves. Set OMP_NUM_THREADS before starting."})
+final class RerankerBenchmarkCommand implements Callable<Integer> {
+  @Option(names = "--train-batches", paramLabel = "N", defaultValue = "30",
+      description = "Training batches timed (default ${DEFAULT-VALUE}).")
+  int trainBatches;
+
+  @Option(names = "--repetitions", paramLabel = "N", defaultValue = "200",
+      description = "Scoring passes timed (default ${DEFAULT-VALUE}).")
+  int repetitions;
+
+  @Override
+  public Integer call() throws Exception {
+    RerankerBenchmark.main(new String[] {"" + trainBatches, "" + repetitions});
+    return 0;
+  }
+}
