@@ -7,7 +7,8 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "benchmark", mixinStandardHelpOptions = true,
     description = "Measures Precedent's speed and prints the figures.",
-    subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class})
+    subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class,
+        ClincBenchmark.class})
 final class BenchmarkCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;

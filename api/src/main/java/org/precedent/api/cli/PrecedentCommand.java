@@ -36,9 +36,17 @@ public final class PrecedentCommand {
     System.exit(run(args));
   }
 
-  /** Runs the command line and returns its exit status, without exiting (for tests). */
+  /** Runs the command line and returns its exit status, without exiting. */
   public static int run(String... args) {
+    return run(new java.io.PrintWriter(System.out, true), new java.io.PrintWriter(System.err, true),
+        args);
+  }
+
+  /** Runs the command line writing to {@code out} and {@code err}; returns the exit status. */
+  public static int run(java.io.PrintWriter out, java.io.PrintWriter err, String... args) {
     CommandLine cli = new CommandLine(new PrecedentCommand());
+    cli.setOut(out);
+    cli.setErr(err);
     cli.setExecutionExceptionHandler((e, line, parsed) -> {
       line.getErr().println("precedent: " + Messages.oneLine(e));
       return FAILED;

@@ -1,0 +1,145 @@
+package org.precedent.engine.decide;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.precedent.engine.fusion.LogisticModel;
+import org.precedent.engine.fusion.PlattCalibrator;
+import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.rerank.TinyModel;
+import org.precedent.engine.safety.SafetyPolicy;
+import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.group.AnswerGrouper;
+import org.precedent.knowledge.ingest.ColumnMapping;
+import org.precedent.knowledge.ingest.ExportFormat;
+import org.precedent.knowledge.ingest.Ingestor;
+import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
+
+/**
+ * The reply-or-hand-off rules, on real parts: a Lucene index of a few labelled tickets, a small
+ * trained reranker, and a fusion model whose weights are set by hand so that the confidence of the
+ * best candidate is known: only the BM25 inverse rank counts, with weight 2, and the Platt map is the
+ * plain logistic function, so the top candidate's confidence is 1 / (1 + e^-2) = 0.881.
+ */
+class AdvisorTest {
+  @TempDir
+  static Path tmp;
+
+  static Knowledge knowledge;
+  static Scorer scorer;
+  static FusionModel fusion;
+  static final double TOP_CONFIDENCE = 1 / (1 + Math.exp(-2));
+
+  @BeforeAll
+  static void setUp() throws Exception {
+    Path csv = Files.writeString(tmp.resolve("tickets.csv"), """
+        text,label,category
+        my bin was not emptied this week,missed_bin,bins
+        the crew missed my bin again,missed_bin,bins
+        how do I send a meter reading,meter_reading,meters
+        where do I give you my meter reading,meter_reading,meters
+        I want to make a formal complaint about your staff,complaint_ack,complaint
+        """);
+    DataDir data = new DataDir(tmp.resolve("data"));
+    new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard()).ingest(csv,
+        ExportFormat.CSV, ColumnMapping.of(Map.of("question", "text", "label", "label",
+            "category", "category")), Progress.silent(), Progress.silent());
+    knowledge = Knowledge.open(data).orElseThrow();
+    scorer = new Scorer(TinyModel.get().model());
+    List<SystemModel> systems = Arrays.stream(ScoringSystem.values()).map(s -> {
+      double[] weights = new double[s.features().size()];
+      int inverseRank = s.features().indexOf("bm25_inverse_rank");
+      if (inverseRank >= 0) {
+        weights[inverseRank] = 2;
+      }
+      double[] zero = new double[weights.length];
+      double[] one = new double[weights.length];
+      Arrays.fill(one, 1);
+      return new SystemModel(s, new LogisticModel(s.features(), zero, one, weights, 0, 0),
+          new PlattCalibrator(-1, 0));
+    }).toList();
+    fusion = new FusionModel(systems, Map.of());
+  }
+
+  @AfterAll
+  static void tearDown() throws Exception {
+    knowledge.close();
+  }
+
+  private Decision decide(String question, String category, Thresholds thresholds,
+      SafetyPolicy policy) {
+    return new Advisor(knowledge.retriever(), scorer, fusion, policy, thresholds)
+        .decide(question, category);
+  }
+
+  @Test
+  void repliesWithTheCanonicalAnswerAtOrAboveTheThreshold() {
+    Decision d = decide("Hi, my bin was not emptied", null, Thresholds.global(0.8),
+        SafetyPolicy.defaults());
+    assertEquals(Outcome.REPLY, d.outcome());
+    assertNull(d.reason());
+    assertEquals("missed_bin", d.answerGroup());
+    assertEquals("missed bin", d.reply());
+    assertEquals(TOP_CONFIDENCE, d.confidence(), 1e-9);
+    assertTrue(d.explanation().contains("0.80"), d.explanation());
+  }
+
+  @Test
+  void handsOffBelowTheThresholdAndObeysCategoryThresholds() {
+    Decision global = decide("my bin was not emptied", null, Thresholds.global(0.9),
+        SafetyPolicy.defaults());
+    assertEquals(Outcome.HAND_OFF, global.outcome());
+    assertEquals(HandOffReason.BELOW_THRESHOLD, global.reason());
+    assertNull(global.reply());
+    Thresholds perCategory = new Thresholds(0.9, Map.of("bins", 0.5));
+    assertEquals(Outcome.REPLY,
+        decide("my bin was not emptied", "bins", perCategory, SafetyPolicy.defaults()).outcome());
+  }
+
+  @Test
+  void aSafetyQuestionIsHandedOffWithItsCautionWhateverTheConfidence() {
+    Decision d = decide("the water from my tap is brown, my bin was not emptied", null,
+        Thresholds.global(0.0), SafetyPolicy.defaults());
+    assertEquals(Outcome.HAND_OFF, d.outcome());
+    assertEquals(HandOffReason.SAFETY_RULE, d.reason());
+    assertNotNull(d.safety());
+    assertEquals("water-quality", d.safety().topic());
+    assertTrue(d.caution().contains("public-health"), d.caution());
+    assertNull(d.reply(), "no automatic reply is ever given for a safety case");
+  }
+
+  @Test
+  void humanOnlyCategoriesAndAnswersAreHandedOff(@TempDir Path dir) throws Exception {
+    SafetyPolicy policy = SafetyPolicy.load(Files.writeString(dir.resolve("team.rules"),
+        "human-only-category = complaint\n"));
+    Decision byAnswer = decide("formal complaint about your staff", null, Thresholds.global(0),
+        policy);
+    assertEquals(HandOffReason.HUMAN_ONLY, byAnswer.reason(), byAnswer.explanation());
+    Decision byTicket = decide("my bin was not emptied", "complaint", Thresholds.global(0), policy);
+    assertEquals(HandOffReason.HUMAN_ONLY, byTicket.reason());
+    Decision byGroup = decide("how do I send a meter reading", null, Thresholds.global(0),
+        policy.withHumanOnlyGroups(java.util.Set.of("meter_reading")));
+    assertEquals(HandOffReason.HUMAN_ONLY, byGroup.reason());
+  }
+
+  @Test
+  void aQuestionSharingNoWordWithThePastHasNoCandidate() {
+    Decision d = decide("xylophone quartz", null, Thresholds.global(0), SafetyPolicy.defaults());
+    assertEquals(HandOffReason.NO_CANDIDATE, d.reason());
+    assertEquals(0, d.confidence());
+    assertTrue(d.candidates().isEmpty());
+  }
+}
