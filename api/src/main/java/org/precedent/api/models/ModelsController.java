@@ -47,7 +47,7 @@ class ModelsController {
 
   @PostMapping(path = "/api/v1/models/{version}/activation",
       consumes = MediaType.APPLICATION_JSON_VALUE)
-  Map<String, Object> activate(@PathVariable String version,
+  Map<String, Object> activate(@PathVariable("version") String version,
       @Valid @RequestBody ActivationRequest request, Principal who) throws IOException {
     if (!models.versions().contains(version)) {
       throw new ResponseStatusException(HttpStatus.NOT_FOUND, "no model version '" + version

@@ -42,7 +42,7 @@ class QueueController {
   }
 
   @GetMapping("/api/v1/queue/tickets/{ticketId}")
-  TicketView ticket(@PathVariable String ticketId) {
+  TicketView ticket(@PathVariable("ticketId") String ticketId) {
     return queue.find(ticketId).orElseThrow(() -> new ResponseStatusException(
         HttpStatus.NOT_FOUND, "no ticket " + ticketId + " in the queue"));
   }
