@@ -42,6 +42,8 @@ public final class TrainedData {
     try {
       if (built == null) {
         built = build();
+        Path done = built;
+        Runtime.getRuntime().addShutdownHook(new Thread(() -> delete(done)));
       }
       Path target = Files.createTempDirectory("precedent-test-data-");
       copyTree(built, target);
