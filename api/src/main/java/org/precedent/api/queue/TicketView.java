@@ -1,0 +1,18 @@
+package org.precedent.api.queue;
+
+import org.precedent.api.suggest.DecisionView;
+
+/**
+ * A queued ticket and, once made, its decision.
+ *
+ * @param ticketId    the caller's id for it
+ * @param status      PENDING (waiting), CLAIMED (being decided), DECIDED, or FAILED (could not be
+ *                    decided after several tries: a person must take it)
+ * @param question    the question as stored: cleaned and redacted
+ * @param category    its category, if given
+ * @param submittedAt when it was stored (ISO-8601)
+ * @param decidedAt   when it was decided, if it was
+ * @param decision    the decision, once made
+ */
+record TicketView(String ticketId, String status, String question, String category,
+    String submittedAt, String decidedAt, DecisionView decision) {}

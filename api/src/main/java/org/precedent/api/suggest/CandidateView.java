@@ -1,0 +1,27 @@
+package org.precedent.api.suggest;
+
+import java.util.List;
+import org.precedent.engine.decide.ScoredCandidate;
+
+/**
+ * One proposed answer.
+ *
+ * @param rank        1 for the best
+ * @param answerGroup the answer's id
+ * @param answer      the answer's text, as past agents wrote it (cleaned)
+ * @param probability the fused model's chance that this answer is right, before calibration
+ * @param bm25        the word-overlap score of its past tickets
+ * @param usedTimes   how many past tickets it resolved
+ * @param category    the category most of those tickets had, if any
+ * @param evidence    the past tickets that support it, best first
+ */
+public record CandidateView(int rank, String answerGroup, String answer, double probability,
+    double bm25, int usedTimes, String category, List<EvidenceView> evidence) {
+
+  static CandidateView of(int rank, ScoredCandidate c) {
+    return new CandidateView(rank, c.candidate().group().id(), c.candidate().group().canonical(),
+        c.probability(), c.candidate().score(), c.candidate().group().size(),
+        c.candidate().group().category(),
+        c.candidate().evidence().stream().map(EvidenceView::of).toList());
+  }
+}

@@ -1,0 +1,31 @@
+package org.precedent.api.suggest;
+
+import jakarta.validation.Valid;
+import org.springframework.http.MediaType;
+import org.springframework.web.bind.annotation.PostMapping;
+import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RestController;
+
+/** Ranked answers for agents, and reply-or-hand-off decisions for any caller. */
+@RestController
+class SuggestController {
+  private final Decider decider;
+
+  SuggestController(Decider decider) {
+    this.decider = decider;
+  }
+
+  /** Ranked suggested answers with their evidence (default 5), and the decision on the best. */
+  @PostMapping(path = "/api/v1/suggestions", consumes = MediaType.APPLICATION_JSON_VALUE)
+  DecisionView suggestions(@Valid @RequestBody QuestionRequest request) {
+    return decider.decide(request.question(), request.categoryOrNull(), request.limitOr(5),
+        "suggestions");
+  }
+
+  /** Whether to reply automatically, with the reason, caution and candidates (default 3). */
+  @PostMapping(path = "/api/v1/decisions", consumes = MediaType.APPLICATION_JSON_VALUE)
+  DecisionView decision(@Valid @RequestBody QuestionRequest request) {
+    return decider.decide(request.question(), request.categoryOrNull(), request.limitOr(3),
+        "decisions");
+  }
+}

@@ -1,0 +1,50 @@
+package org.precedent.api.system;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.precedent.knowledge.store.DataDir;
+import org.springframework.beans.factory.annotation.Value;
+import org.springframework.boot.SpringApplication;
+import org.springframework.boot.autoconfigure.SpringBootApplication;
+import org.springframework.boot.web.servlet.context.ServletWebServerApplicationContext;
+import org.springframework.context.ConfigurableApplicationContext;
+import org.springframework.context.annotation.Bean;
+
+/**
+ * The HTTP service: the Spring application behind {@code precedent serve}. Only that command starts
+ * it, so the other commands stay free of Spring's start-up time.
+ */
+@SpringBootApplication(scanBasePackages = "org.precedent.api")
+public class PrecedentServer {
+
+  /**
+   * Starts the service on the active model of {@code data} and returns once it takes requests.
+   *
+   * @param port  the port, 0 for any free one
+   * @param extra further settings as {@code --name=value} arguments
+   */
+  public static ConfigurableApplicationContext start(Path data, int port, List<String> extra)
+      throws IOException {
+    Path root = data.toAbsolutePath().normalize();
+    Files.createDirectories(root.resolve("service"));
+    List<String> args = new ArrayList<>();
+    args.add("--precedent.data=" + root);
+    args.add("--server.port=" + port);
+    args.addAll(extra);
+    SpringApplication app = new SpringApplication(PrecedentServer.class);
+    return app.run(args.toArray(String[]::new));
+  }
+
+  /** The port the running service listens on. */
+  public static int port(ConfigurableApplicationContext context) {
+    return ((ServletWebServerApplicationContext) context).getWebServer().getPort();
+  }
+
+  @Bean(destroyMethod = "close")
+  ModelHolder modelHolder(@Value("${precedent.data}") Path data) throws IOException {
+    return new ModelHolder(new DataDir(data));
+  }
+}

@@ -1,0 +1,51 @@
+package org.precedent.api.system;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import jakarta.servlet.http.HttpServletRequest;
+import jakarta.servlet.http.HttpServletResponse;
+import java.io.IOException;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import org.springframework.http.HttpStatus;
+import org.springframework.http.MediaType;
+import org.springframework.security.access.AccessDeniedException;
+import org.springframework.security.core.AuthenticationException;
+import org.springframework.security.web.AuthenticationEntryPoint;
+import org.springframework.security.web.access.AccessDeniedHandler;
+import org.springframework.stereotype.Component;
+
+/** 401 and 403 as RFC 9457 problem details, like every other error of the service. */
+@Component
+class ProblemResponses implements AuthenticationEntryPoint, AccessDeniedHandler {
+  private final ObjectMapper json = new ObjectMapper();
+
+  @Override
+  public void commence(HttpServletRequest request, HttpServletResponse response,
+      AuthenticationException e) throws IOException {
+    response.setHeader("WWW-Authenticate", "Basic realm=\"precedent\"");
+    String detail = request.getHeader(ApiKeyFilter.HEADER) != null ? e.getMessage()
+        : request.getHeader("Authorization") != null ? "user name or password is wrong"
+        : "send an API key in the " + ApiKeyFilter.HEADER + " header, or HTTP basic credentials";
+    write(request, response, HttpStatus.UNAUTHORIZED, detail);
+  }
+
+  @Override
+  public void handle(HttpServletRequest request, HttpServletResponse response,
+      AccessDeniedException e) throws IOException {
+    write(request, response, HttpStatus.FORBIDDEN, "your role may not "
+        + request.getMethod() + " " + request.getRequestURI());
+  }
+
+  private void write(HttpServletRequest request, HttpServletResponse response, HttpStatus status,
+      String detail) throws IOException {
+    Map<String, Object> body = new LinkedHashMap<>();
+    body.put("type", "about:blank");
+    body.put("title", status.getReasonPhrase());
+    body.put("status", status.value());
+    body.put("detail", detail);
+    body.put("instance", request.getRequestURI());
+    response.setStatus(status.value());
+    response.setContentType(MediaType.APPLICATION_PROBLEM_JSON_VALUE);
+    json.writeValue(response.getOutputStream(), body);
+  }
+}

@@ -1,0 +1,82 @@
+package org.precedent.api.system;
+
+import static org.springframework.http.HttpMethod.GET;
+import static org.springframework.http.HttpMethod.POST;
+import static org.springframework.http.HttpMethod.PUT;
+
+import java.util.Locale;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
+import org.springframework.beans.factory.annotation.Value;
+import org.springframework.context.annotation.Bean;
+import org.springframework.context.annotation.Configuration;
+import org.springframework.security.config.annotation.web.builders.HttpSecurity;
+import org.springframework.security.config.http.SessionCreationPolicy;
+import org.springframework.security.core.userdetails.User;
+import org.springframework.security.core.userdetails.UserDetailsService;
+import org.springframework.security.provisioning.InMemoryUserDetailsManager;
+import org.springframework.security.web.SecurityFilterChain;
+import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
+
+/**
+ * Who may do what. Agents ask for suggestions and give feedback; the queue submits tickets;
+ * managers change the threshold and the model. Callers prove who they are with an API key or with
+ * HTTP basic; no sessions are kept.
+ */
+@Configuration
+class SecurityConfig {
+  private static final Logger LOG = LoggerFactory.getLogger(SecurityConfig.class);
+  static final String DEMO_USERS = "agent:agent-demo-password:agent,"
+      + "manager:manager-demo-password:manager,queue:queue-demo-password:queue";
+
+  @Bean
+  Credentials credentials(@Value("${precedent.security.users:}") String users,
+      @Value("${precedent.security.keys:}") String keys) {
+    Credentials c = new Credentials(users, keys);
+    if (DEMO_USERS.equals(users)) {
+      LOG.warn("demo credentials in force (replace them with precedent.security.users and "
+          + "precedent.security.keys): users agent, manager, queue with password "
+          + "<role>-demo-password; API keys demo-agent-key, demo-manager-key, demo-queue-key");
+    }
+    return c;
+  }
+
+  @Bean
+  UserDetailsService users(Credentials credentials) {
+    InMemoryUserDetailsManager manager = new InMemoryUserDetailsManager();
+    for (Credentials.Entry u : credentials.users()) {
+      String secret = u.secret().startsWith("{") ? u.secret() : "{noop}" + u.secret();
+      manager.createUser(User.withUsername(u.name()).password(secret)
+          .roles(u.role().toUpperCase(Locale.ROOT)).build());
+    }
+    return manager;
+  }
+
+  @Bean
+  SecurityFilterChain api(HttpSecurity http, Credentials credentials, ProblemResponses problems)
+      throws Exception {
+    http.csrf(c -> c.disable())
+        .sessionManagement(s -> s.sessionCreationPolicy(SessionCreationPolicy.STATELESS))
+        .httpBasic(b -> b.authenticationEntryPoint(problems))
+        .exceptionHandling(e -> e.authenticationEntryPoint(problems).accessDeniedHandler(problems))
+        .addFilterBefore(new ApiKeyFilter(credentials, problems), BasicAuthenticationFilter.class)
+        .authorizeHttpRequests(a -> a
+            .requestMatchers(GET, "/actuator/health", "/actuator/health/**").permitAll()
+            .requestMatchers("/api/v1/openapi", "/api/v1/openapi/**", "/api/v1/docs",
+                "/api/v1/docs/**", "/swagger-ui/**").permitAll()
+            .requestMatchers(GET, "/", "/agent", "/manager", "/pages/**", "/error").permitAll()
+            .requestMatchers(POST, "/api/v1/suggestions").hasAnyRole("AGENT", "MANAGER")
+            .requestMatchers(POST, "/api/v1/decisions").hasAnyRole("AGENT", "MANAGER", "QUEUE")
+            .requestMatchers(POST, "/api/v1/queue/tickets").hasRole("QUEUE")
+            .requestMatchers(GET, "/api/v1/queue/tickets/*")
+                .hasAnyRole("QUEUE", "AGENT", "MANAGER")
+            .requestMatchers(POST, "/api/v1/feedback").hasRole("AGENT")
+            .requestMatchers(GET, "/api/v1/threshold", "/api/v1/threshold/changes",
+                "/api/v1/threshold/evaluation").hasRole("MANAGER")
+            .requestMatchers(PUT, "/api/v1/threshold").hasRole("MANAGER")
+            .requestMatchers("/api/v1/models", "/api/v1/models/**").hasRole("MANAGER")
+            .requestMatchers("/actuator/**").hasRole("MANAGER")
+            .anyRequest().authenticated());
+    return http.build();
+  }
+}

@@ -1,0 +1,114 @@
+package org.precedent.api.threshold;
+
+import jakarta.validation.Valid;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.Principal;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import org.precedent.api.system.FieldProblem;
+import org.precedent.api.system.Limits;
+import org.precedent.api.system.ModelHolder;
+import org.precedent.engine.decide.Thresholds;
+import org.precedent.engine.evaluate.EvaluationReport;
+import org.precedent.engine.evaluate.ReportFiles;
+import org.springframework.http.HttpStatus;
+import org.springframework.http.MediaType;
+import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.web.bind.annotation.GetMapping;
+import org.springframework.web.bind.annotation.PutMapping;
+import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RestController;
+import org.springframework.web.server.ResponseStatusException;
+
+/** The reply threshold: read it, change it (audited), and read the evaluation to choose it by. */
+@RestController
+class ThresholdController {
+  private final ModelHolder models;
+  private final JdbcTemplate db;
+
+  ThresholdController(ModelHolder models, JdbcTemplate db) {
+    this.models = models;
+    this.db = db;
+  }
+
+  @GetMapping("/api/v1/threshold")
+  Map<String, Object> current() {
+    Thresholds t = models.thresholds();
+    Map<String, Object> out = new LinkedHashMap<>();
+    out.put("global", t.global());
+    out.put("perCategory", new TreeMap<>(t.perCategory()));
+    out.put("modelVersion", models.version());
+    return out;
+  }
+
+  /**
+   * Puts new thresholds in force for every later decision, writes them to the data directory and
+   * keeps an audit record (who, when, old and new values, why); all of it or none.
+   */
+  @PutMapping(path = "/api/v1/threshold", consumes = MediaType.APPLICATION_JSON_VALUE)
+  Map<String, Object> change(@Valid @RequestBody ThresholdChange change, Principal who)
+      throws IOException {
+    Map<String, Double> perCategory = change.perCategory() == null ? Map.of()
+        : change.perCategory();
+    perCategory.forEach((category, value) -> {
+      if (category.isBlank() || category.length() > Limits.NAME_CHARS
+          || !category.matches("[^=:#!\\s]+")) {
+        throw new FieldProblem("perCategory", "'" + category + "' is not a usable category name");
+      }
+      if (value == null || !(value >= 0 && value <= 1)) {
+        throw new FieldProblem("perCategory." + category, "must be between 0 and 1");
+      }
+    });
+    Thresholds next = new Thresholds(change.global(), perCategory);
+    Instant at = Instant.now();
+    Thresholds old = models.changeThresholds(next, (before, after) ->
+        db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, new_value, "
+            + "reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
+            describe(before), describe(after), change.reason().strip()));
+    Map<String, Object> out = new LinkedHashMap<>();
+    out.put("changedBy", who.getName());
+    out.put("changedAt", at.toString());
+    out.put("old", describe(old));
+    out.put("new", describe(next));
+    return out;
+  }
+
+  @GetMapping("/api/v1/threshold/changes")
+  List<Map<String, Object>> changes() {
+    return db.query("SELECT changed_by, changed_at, old_value, new_value, reason "
+        + "FROM threshold_change ORDER BY id DESC", (rs, n) -> {
+          Map<String, Object> m = new LinkedHashMap<>();
+          m.put("changedBy", rs.getString(1));
+          m.put("changedAt", rs.getTimestamp(2).toInstant().toString());
+          m.put("old", rs.getString(3));
+          m.put("new", rs.getString(4));
+          m.put("reason", rs.getString(5));
+          return m;
+        });
+  }
+
+  /** The latest evaluation report ({@code precedent evaluate}), to choose a threshold by. */
+  @GetMapping("/api/v1/threshold/evaluation")
+  EvaluationReport evaluation() throws IOException {
+    Path latest = models.dataDir().root().resolve("reports").resolve("latest.json");
+    if (!Files.isRegularFile(latest)) {
+      throw new ResponseStatusException(HttpStatus.NOT_FOUND,
+          "no evaluation yet: run 'precedent evaluate' on held-out tickets first");
+    }
+    return ReportFiles.readJson(latest);
+  }
+
+  static String describe(Thresholds t) {
+    StringBuilder s = new StringBuilder(String.format(Locale.ROOT, "global=%.4f", t.global()));
+    new TreeMap<>(t.perCategory()).forEach((c, v) ->
+        s.append(String.format(Locale.ROOT, "; %s=%.4f", c, v)));
+    return s.toString();
+  }
+}

@@ -1,0 +1,118 @@
+package org.precedent.api.models;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.CopyOnWriteArrayList;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.concurrent.atomic.AtomicInteger;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.precedent.api.testing.Http;
+import org.precedent.api.testing.Http.Caller;
+import org.precedent.api.testing.Http.Reply;
+import org.precedent.api.testing.RunningService;
+
+/** Switching model versions: audited, persisted, and invisible to requests in flight. */
+class ModelSwapTest {
+  static RunningService service;
+  static Http http;
+
+  @BeforeAll
+  static void start() {
+    service = RunningService.start();
+    http = service.http();
+  }
+
+  @AfterAll
+  static void stop() {
+    service.close();
+  }
+
+  private static String active() {
+    return http.get("/api/v1/models", Caller.MANAGER).json().get("active").asText();
+  }
+
+  @Test
+  void swapsUnderConcurrentRequestsFailNone() throws Exception {
+    String[] questions = {"My green bin was not emptied", "How do I send a meter reading?",
+        "Can I pay my bill in instalments?", "The water pressure is low today"};
+    AtomicBoolean stop = new AtomicBoolean();
+    AtomicInteger ok = new AtomicInteger();
+    List<String> failures = new CopyOnWriteArrayList<>();
+    Set<String> versionsSeen = ConcurrentHashMap.newKeySet();
+    ExecutorService callers = Executors.newFixedThreadPool(4);
+    for (int t = 0; t < 4; t++) {
+      int first = t;
+      callers.submit(() -> {
+        for (int i = first; !stop.get(); i++) {
+          Reply r = http.post("/api/v1/decisions", Map.of("question",
+              questions[i % questions.length]), Caller.AGENT);
+          if (r.status() == 200) {
+            ok.incrementAndGet();
+            versionsSeen.add(r.json().get("modelVersion").asText());
+          } else {
+            failures.add(r.status() + " " + r.raw().body());
+          }
+        }
+      });
+    }
+    for (int swap = 0; swap < 6; swap++) {
+      String to = swap % 2 == 0 ? "v-0002" : "v-0001";
+      Reply r = http.post("/api/v1/models/" + to + "/activation",
+          Map.of("reason", "swap " + swap + " under load"), Caller.MANAGER);
+      assertEquals(200, r.status(), r.raw().body());
+      Thread.sleep(300);
+    }
+    stop.set(true);
+    callers.shutdown();
+    assertTrue(callers.awaitTermination(60, TimeUnit.SECONDS));
+    assertEquals(List.of(), failures);
+    assertTrue(ok.get() > 20, "requests answered during the swaps: " + ok.get());
+    assertEquals(Set.of("v-0001", "v-0002"), versionsSeen);
+  }
+
+  @Test
+  void rollbackReturnsToThePreviousVersionAndBothAreAudited() throws Exception {
+    String start = active();
+    String other = start.equals("v-0001") ? "v-0002" : "v-0001";
+    assertEquals(200, http.post("/api/v1/models/" + other + "/activation",
+        Map.of("reason", "try the other one"), Caller.MANAGER).status());
+    assertEquals(other, active());
+    assertEquals(other, Files.readString(service.data().resolve("models/ACTIVE")).strip());
+    Reply back = http.post("/api/v1/models/rollback", Map.of("reason", "worse"), Caller.MANAGER);
+    assertEquals(200, back.status(), back.raw().body());
+    assertEquals(start, back.json().get("active").asText());
+    assertEquals(start, active());
+    var activations = http.get("/api/v1/models", Caller.MANAGER).json().get("activations");
+    assertEquals("worse", activations.get(0).get("reason").asText());
+    assertEquals("manager-key", activations.get(0).get("activatedBy").asText());
+  }
+
+  @Test
+  void anUnknownOrDamagedVersionLeavesTheActiveOneInForce() throws Exception {
+    String before = active();
+    Reply unknown = http.post("/api/v1/models/v-0042/activation", Map.of("reason", "x"),
+        Caller.MANAGER);
+    assertEquals(404, unknown.status());
+    TestCopies.damagedVersion(service.data(), "v-0003");
+    Reply damaged = http.post("/api/v1/models/v-0003/activation", Map.of("reason", "x"),
+        Caller.MANAGER);
+    assertEquals(422, damaged.status(), damaged.raw().body());
+    assertTrue(damaged.json().get("detail").asText().contains("corrupt"),
+        damaged.json().toString());
+    assertEquals(before, active());
+    assertEquals(before, Files.readString(service.data().resolve("models/ACTIVE")).strip());
+    assertEquals(200, http.post("/api/v1/decisions", Map.of("question", "bin"), Caller.AGENT)
+        .status());
+  }
+}

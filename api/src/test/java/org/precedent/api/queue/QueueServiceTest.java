@@ -1,0 +1,124 @@
+package org.precedent.api.queue;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.precedent.api.testing.Http;
+import org.precedent.api.testing.Http.Caller;
+import org.precedent.api.testing.Http.Reply;
+import org.precedent.api.testing.RunningService;
+import org.springframework.jdbc.core.JdbcTemplate;
+
+/** The ticket queue: stored before acknowledged, decided once, resubmission idempotent. */
+class QueueServiceTest {
+  static RunningService service;
+  static Http http;
+
+  @BeforeAll
+  static void start() {
+    service = RunningService.start("--precedent.queue.poll-ms=100");
+    http = service.http();
+  }
+
+  @AfterAll
+  static void stop() {
+    service.close();
+  }
+
+  static JsonNode decided(String id) throws InterruptedException {
+    for (int i = 0; i < 600; i++) {
+      Reply r = http.get("/api/v1/queue/tickets/" + id, Caller.QUEUE);
+      assertEquals(200, r.status(), r.raw().body());
+      if (r.json().get("status").asText().equals("DECIDED")) {
+        return r.json();
+      }
+      Thread.sleep(50);
+    }
+    throw new AssertionError("ticket " + id + " was not decided within 30 s");
+  }
+
+  @Test
+  void aSubmittedTicketIsStoredRedactedThenDecided() throws Exception {
+    Reply r = http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-1", "question",
+        "My bin was not collected, call me on 07700 900123", "category", "waste"), Caller.QUEUE);
+    assertEquals(202, r.status(), r.raw().body());
+    assertEquals("/api/v1/queue/tickets/Q-1", r.header("Location"));
+    String stored = service.bean(JdbcTemplate.class).queryForObject(
+        "SELECT question FROM queue_ticket WHERE ticket_id = 'Q-1'", String.class);
+    assertFalse(stored.contains("07700"), stored);
+    assertTrue(stored.contains("[PHONE]"), stored);
+    JsonNode t = decided("Q-1");
+    assertEquals("waste", t.get("category").asText());
+    assertTrue(Set.of("REPLY", "HAND_OFF").contains(t.get("decision").get("outcome").asText()));
+    assertFalse(t.get("decision").get("candidates").isEmpty());
+  }
+
+  @Test
+  void aResubmissionReturnsTheFirstDecision() throws Exception {
+    Map<String, String> ticket = Map.of("ticketId", "Q-2", "question", "How do I read my meter?");
+    assertEquals(202, http.post("/api/v1/queue/tickets", ticket, Caller.QUEUE).status());
+    JsonNode first = decided("Q-2");
+    Reply again = http.post("/api/v1/queue/tickets", ticket, Caller.QUEUE);
+    assertEquals(200, again.status());
+    assertEquals(first.get("decidedAt").asText(), again.json().get("decidedAt").asText());
+    assertEquals(first.get("decision"), again.json().get("decision"));
+  }
+
+  @Test
+  void theSameIdWithAnotherQuestionIsAConflict() {
+    assertEquals(202, http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-3",
+        "question", "Missed bin collection"), Caller.QUEUE).status());
+    Reply r = http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-3",
+        "question", "Something else entirely"), Caller.QUEUE);
+    assertEquals(409, r.status());
+    assertTrue(r.json().get("detail").asText().contains("Q-3"));
+  }
+
+  @Test
+  void concurrentSubmissionsOfOneIdStoreAndDecideItOnce() throws Exception {
+    Map<String, String> ticket = Map.of("ticketId", "Q-4", "question", "Where do I pay my bill?");
+    ExecutorService pool = Executors.newFixedThreadPool(8);
+    List<Future<Integer>> statuses = new ArrayList<>();
+    for (int i = 0; i < 16; i++) {
+      statuses.add(pool.submit(() -> http.post("/api/v1/queue/tickets", ticket, Caller.QUEUE)
+          .status()));
+    }
+    int accepted = 0;
+    for (Future<Integer> f : statuses) {
+      int s = f.get();
+      assertTrue(s == 202 || s == 200, "status " + s);
+      accepted += s == 202 ? 1 : 0;
+    }
+    pool.shutdown();
+    assertEquals(1, accepted, "exactly one submission creates the ticket");
+    decided("Q-4");
+    JdbcTemplate db = service.bean(JdbcTemplate.class);
+    assertEquals(1, db.queryForObject("SELECT COUNT(*) FROM queue_ticket WHERE ticket_id = 'Q-4'",
+        Integer.class));
+    assertEquals(1, db.queryForObject(
+        "SELECT COUNT(*) FROM ticket_decision WHERE ticket_id = 'Q-4'", Integer.class));
+  }
+
+  @Test
+  void anUnknownTicketIs404AndABadIdIsAFieldError() {
+    Reply missing = http.get("/api/v1/queue/tickets/NOPE-9", Caller.AGENT);
+    assertEquals(404, missing.status());
+    assertTrue(missing.json().get("detail").asText().contains("NOPE-9"));
+    Reply bad = http.post("/api/v1/queue/tickets", Map.of("ticketId", "a b/c", "question", "x"),
+        Caller.QUEUE);
+    assertEquals(400, bad.status());
+    assertEquals("ticketId", bad.json().get("errors").get(0).get("field").asText());
+  }
+}

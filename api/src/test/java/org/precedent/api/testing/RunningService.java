@@ -1,0 +1,48 @@
+package org.precedent.api.testing;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Path;
+import java.util.List;
+import org.precedent.api.system.PrecedentServer;
+import org.springframework.context.ConfigurableApplicationContext;
+
+/** The real service on a free port, over its own copy of the trained data directory. */
+public final class RunningService implements AutoCloseable {
+  private final Path data;
+  private final ConfigurableApplicationContext context;
+  private final Http http;
+
+  private RunningService(Path data, ConfigurableApplicationContext context) {
+    this.data = data;
+    this.context = context;
+    this.http = new Http(PrecedentServer.port(context));
+  }
+
+  public static RunningService start(String... settings) {
+    Path data = TrainedData.copy();
+    try {
+      return new RunningService(data, PrecedentServer.start(data, 0, List.of(settings)));
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  public Http http() {
+    return http;
+  }
+
+  public Path data() {
+    return data;
+  }
+
+  public <T> T bean(Class<T> type) {
+    return context.getBean(type);
+  }
+
+  @Override
+  public void close() {
+    context.close();
+    TrainedData.delete(data);
+  }
+}
