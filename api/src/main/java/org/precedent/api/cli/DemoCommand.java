@@ -50,7 +50,7 @@ final class DemoCommand implements Callable<Integer> {
       description = "The demo tickets (default: demo-data/ of the Precedent checkout).")
   Path demoData;
 
-  @Option(names = "--epochs", paramLabel = "N", defaultValue = "8",
+  @Option(names = "--epochs", paramLabel = "N", defaultValue = "6",
       description = "Most reranker training epochs (default ${DEFAULT-VALUE}).")
   int epochs;
 

@@ -30,7 +30,7 @@ final class TrainCommand implements Callable<Integer> {
   boolean resume;
 
   @Option(names = "--epochs", paramLabel = "N", description = "Most epochs (default ${DEFAULT-VALUE}).",
-      defaultValue = "12")
+      defaultValue = "8")
   int epochs;
 
   @Option(names = "--hidden", paramLabel = "N", description = "LSTM size (default ${DEFAULT-VALUE}).",
@@ -50,7 +50,7 @@ final class TrainCommand implements Callable<Integer> {
   int answerTokens;
 
   @Option(names = "--learning-rate", paramLabel = "R",
-      description = "Adam learning rate (default ${DEFAULT-VALUE}).", defaultValue = "0.002")
+      description = "Adam learning rate (default ${DEFAULT-VALUE}).", defaultValue = "0.005")
   double learningRate;
 
   @Override
