@@ -24,7 +24,7 @@ import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.TrainedReranker;
-import org.precedent.engine.rerank.io.AtomicFiles;
+import org.precedent.knowledge.store.AtomicFiles;
 import org.precedent.engine.rerank.tokens.Vocabulary;
 
 /**
@@ -65,11 +65,18 @@ public final class ModelStore {
     Files.createDirectories(root);
     Path staging = Files.createTempDirectory(root, ".staging-");
     try {
+      // Temporary directories are owner-only; a model version is an ordinary directory.
+      try {
+        Files.setPosixFilePermissions(staging,
+            java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
+      } catch (UnsupportedOperationException e) {
+        // not a POSIX file system: keep its default
+      }
       writeFiles(staging, trained);
       while (true) {
         String version = nextVersion();
         try {
-          AtomicFiles.moveAtomically(staging, root.resolve(version));
+          AtomicFiles.move(staging, root.resolve(version));
           return version;
         } catch (FileAlreadyExistsException | java.nio.file.DirectoryNotEmptyException raced) {
           // another writer took this number; try the next one
