@@ -8,8 +8,11 @@ import picocli.CommandLine.Spec;
 @Command(name = "benchmark", mixinStandardHelpOptions = true,
     description = "Measures Precedent's speed and prints the figures.",
     subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class,
-        ClincBenchmark.class})
+        ClincBenchmark.class, ServiceBenchmark.class})
 final class BenchmarkCommand implements Callable<Integer> {
+  @picocli.CommandLine.ParentCommand
+  PrecedentCommand parent;
+
   @Spec
   CommandSpec spec;
 

@@ -50,6 +50,13 @@ final class DemoCommand implements Callable<Integer> {
       description = "The demo tickets (default: demo-data/ of the Precedent checkout).")
   Path demoData;
 
+  @Option(names = "--no-serve", description = "End after the samples instead of starting the service.")
+  boolean noServe;
+
+  @Option(names = "--port", paramLabel = "N", defaultValue = "8080",
+      description = "Port of the service started at the end (default ${DEFAULT-VALUE}).")
+  int port;
+
   @Option(names = "--epochs", paramLabel = "N", defaultValue = "6",
       description = "Most reranker training epochs (default ${DEFAULT-VALUE}).")
   int epochs;
@@ -149,9 +156,14 @@ final class DemoCommand implements Callable<Integer> {
         printer.print(advisor.decide(q, null));
       }
     }
-    out.println("Next: ./precedent ask --data " + data + " \"my bin was not collected\"");
-    out.println("      the evaluation report is in " + data.resolve("reports"));
-    return 0;
+    out.println("Ask more: ./precedent ask --data " + data + " \"my bin was not collected\"");
+    out.println("The evaluation report is in " + data.resolve("reports"));
+    if (noServe) {
+      return 0;
+    }
+    out.printf(Locale.ROOT, "%n[6] starting the service on the demo model%n");
+    out.flush();
+    return ServeCommand.serve(out, spec.commandLine().getErr(), data, port, List.of());
   }
 
   private static Path defaultDemoData() {

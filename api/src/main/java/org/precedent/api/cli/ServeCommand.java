@@ -52,12 +52,18 @@ final class ServeCommand implements Callable<Integer> {
           + " yet: run 'precedent train' first");
       return PrecedentCommand.FAILED;
     }
+    return serve(out, spec.commandLine().getErr(), parent.dataDir(), port,
+        settings == null ? List.of() : settings);
+  }
+
+  /** Starts the service on a data directory with a trained model; returns when it is stopped. */
+  static int serve(PrintWriter out, PrintWriter err, java.nio.file.Path data, int port,
+      List<String> settings) throws InterruptedException, java.io.IOException {
     ConfigurableApplicationContext context;
     try {
-      context = PrecedentServer.start(parent.dataDir(), port,
-          settings == null ? List.of() : settings);
+      context = PrecedentServer.start(data, port, settings);
     } catch (RuntimeException e) {
-      spec.commandLine().getErr().println("precedent serve: " + Messages.oneLine(rootCause(e)));
+      err.println("precedent serve: " + Messages.oneLine(rootCause(e)));
       return PrecedentCommand.FAILED;
     }
     CountDownLatch closed = new CountDownLatch(1);
@@ -68,7 +74,8 @@ final class ServeCommand implements Callable<Integer> {
     });
     String version = context.getBean(ModelHolder.class).version();
     out.printf("Precedent is serving model %s from %s at http://localhost:%d/%n", version,
-        parent.dataDir().toAbsolutePath(), PrecedentServer.port(context));
+        data.toAbsolutePath(), PrecedentServer.port(context));
+    out.println("Stop it with Ctrl-C.");
     out.flush();
     closed.await();
     return 0;

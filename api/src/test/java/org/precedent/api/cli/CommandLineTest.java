@@ -29,7 +29,8 @@ class CommandLineTest {
   void everySubCommandHasHelp() {
     for (List<String> command : List.of(List.of("ingest"), List.of("ask"), List.of("train"),
         List.of("evaluate"), List.of("demo"), List.of("benchmark", "retrieval"),
-        List.of("benchmark", "reranker"), List.of("benchmark", "clinc150"))) {
+        List.of("benchmark", "reranker"), List.of("benchmark", "clinc150"),
+        List.of("benchmark", "service"), List.of("serve"), List.of("triage"))) {
       String[] args = java.util.stream.Stream.concat(command.stream(), java.util.stream.Stream.of(
           "--help")).toArray(String[]::new);
       Run r = run(args);
