@@ -21,7 +21,8 @@ public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Dou
 
   public FusionModel {
     systems = List.copyOf(systems);
-    validation = Map.copyOf(validation);
+    // Kept in the systems' order, for reports.
+    validation = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(validation));
     for (ScoringSystem s : ScoringSystem.values()) {
       if (systems.stream().noneMatch(m -> m.system() == s)) {
         throw new IllegalArgumentException("fusion model lacks the " + s + " system");

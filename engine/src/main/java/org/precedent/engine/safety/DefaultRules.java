@@ -40,7 +40,7 @@ final class DefaultRules {
   static final List<Spec> ALL = List.of(
       // Water quality: what comes out of the tap may not be safe to drink.
       new Spec("wq-discoloured", "water-quality", "dis-?colou?r(?:ed|ation)|" + COLOUR + " (?:tap )?water|"
-          + "water " + gap(4) + WATER_VERB + " " + DEGREE + "(?:" + COLOUR + "|dirty|discolou?red)|"
+          + "water " + gap(6) + WATER_VERB + " " + DEGREE + "(?:" + COLOUR + "|dirty|discolou?red)|"
           + "colou?r of (?:weak )?(?:tea|coffee|rust|mud)|"
           + "dirty (?:tap )?water (?:from|out of|coming out of|coming from|in) " + gap(3) + "taps?"),
       new Spec("wq-particles", "water-quality", "(?:black|brown|orange) bits|"

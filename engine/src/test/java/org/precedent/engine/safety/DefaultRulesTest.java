@@ -23,6 +23,7 @@ class DefaultRulesTest {
   @ParameterizedTest(name = "{1}: {0}")
   @CsvSource(delimiter = '|', textBlock = """
       The water from my kitchen tap is brown                                  | water-quality
+      The water coming out of my kitchen tap is brown. Is it safe to drink?   | water-quality
       brown water coming out of the bath taps, what do I do                   | water-quality
       Why is my water discolored?                                              | water-quality
       The water has gone a really dark orange since this morning               | water-quality
