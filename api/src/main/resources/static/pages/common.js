@@ -46,13 +46,17 @@ const Precedent = (() => {
     document.getElementById('who').textContent = signedIn && c ? 'Signed in as ' + c.label : '';
   }
 
+  function signInStatus(message, isProblem) {
+    const status = document.getElementById('sign-in-status');
+    status.textContent = message;
+    status.className = isProblem ? 'status problem' : 'status';
+  }
+
   /** Forgets the credentials and asks for them again, saying why. */
   function needSignIn(message) {
     sessionStorage.removeItem(STORE);
     showSignedIn(false);
-    const status = document.getElementById('sign-in-status');
-    status.textContent = message || '';
-    status.className = message ? 'status problem' : 'status';
+    signInStatus(message, true);
   }
 
   function wireSignIn() {
@@ -81,11 +85,14 @@ const Precedent = (() => {
       sessionStorage.setItem(STORE, JSON.stringify(c));
       form.reset();
       toggle();
-      needSignIn('');
+      signInStatus('', false);
       showSignedIn(true);
       onReady();
     });
-    document.getElementById('sign-out').addEventListener('click', () => needSignIn('Signed out.'));
+    document.getElementById('sign-out').addEventListener('click', () => {
+      needSignIn('');
+      signInStatus('Signed out.', false);
+    });
   }
 
   /**

@@ -58,7 +58,9 @@
     const table = system.categories;
     $('categories-note').textContent = 'Measured at threshold ' + num(table.threshold).toFixed(2) + ', '
       + (BASIS[table.basis] || table.basis) + '. The evaluation keeps category results at that one '
-      + 'threshold only, so this table does not follow the slider.';
+      + 'threshold only, so this table does not follow the slider. The figures measure confidence '
+      + 'alone: in service, questions under a safety rule or in a people-only category are still '
+      + 'handed off.';
     const own = inForce.perCategory || {};
     $('categories').tBodies[0].replaceChildren(...table.rows.map(c => el('tr', {},
       el('th', { scope: 'row' }, c.category),
@@ -74,6 +76,7 @@
     const r = await call('GET', '/api/v1/threshold/changes');
     if (r.status !== 200) return;
     $('audit-empty').hidden = r.json.length > 0;
+    $('audit').hidden = r.json.length === 0;
     $('audit').tBodies[0].replaceChildren(...r.json.slice(0, 50).map(c => el('tr', {},
       el('td', {}, c.changedAt.replace('T', ' ').replace(/\.\d+Z$|Z$/, '')),
       el('td', {}, c.changedBy), el('td', {}, c.old), el('td', {}, c.new), el('td', {}, c.reason))));
