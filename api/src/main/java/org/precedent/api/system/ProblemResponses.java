@@ -22,7 +22,11 @@ class ProblemResponses implements AuthenticationEntryPoint, AccessDeniedHandler 
   @Override
   public void commence(HttpServletRequest request, HttpServletResponse response,
       AuthenticationException e) throws IOException {
-    response.setHeader("WWW-Authenticate", "Basic realm=\"precedent\"");
+    // The pages mark their calls; they ask for credentials themselves, so the browser's own
+    // password dialog must not pop up over them.
+    if (!"XMLHttpRequest".equals(request.getHeader("X-Requested-With"))) {
+      response.setHeader("WWW-Authenticate", "Basic realm=\"precedent\"");
+    }
     String detail = request.getHeader(ApiKeyFilter.HEADER) != null ? e.getMessage()
         : request.getHeader("Authorization") != null ? "user name or password is wrong"
         : "send an API key in the " + ApiKeyFilter.HEADER + " header, or HTTP basic credentials";

@@ -4,6 +4,7 @@ import static org.springframework.http.HttpMethod.GET;
 import static org.springframework.http.HttpMethod.POST;
 import static org.springframework.http.HttpMethod.PUT;
 
+import jakarta.servlet.http.HttpServletRequest;
 import java.util.Locale;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -17,6 +18,8 @@ import org.springframework.security.core.userdetails.UserDetailsService;
 import org.springframework.security.provisioning.InMemoryUserDetailsManager;
 import org.springframework.security.web.SecurityFilterChain;
 import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
+import org.springframework.security.web.header.writers.DelegatingRequestMatcherHeaderWriter;
+import org.springframework.security.web.header.writers.StaticHeadersWriter;
 
 /**
  * Who may do what. Agents ask for suggestions and give feedback; the queue submits tickets;
@@ -28,6 +31,18 @@ class SecurityConfig {
   private static final Logger LOG = LoggerFactory.getLogger(SecurityConfig.class);
   static final String DEMO_USERS = "agent:agent-demo-password:agent,"
       + "manager:manager-demo-password:manager,queue:queue-demo-password:queue";
+
+  // The pages load only their own files and run no inline script, so text that slips into markup
+  // by mistake still cannot run.
+  static final String PAGE_POLICY = "default-src 'self'; script-src 'self'; style-src 'self'; "
+      + "img-src 'self' data:; object-src 'none'; base-uri 'none'; form-action 'self'; "
+      + "frame-ancestors 'none'";
+
+  static boolean isPage(HttpServletRequest request) {
+    String path = request.getRequestURI();
+    return path.equals("/") || path.equals("/desk") || path.equals("/manage")
+        || path.startsWith("/pages/");
+  }
 
   @Bean
   Credentials credentials(@Value("${precedent.security.users:}") String users,
@@ -56,6 +71,9 @@ class SecurityConfig {
   SecurityFilterChain api(HttpSecurity http, Credentials credentials, ProblemResponses problems)
       throws Exception {
     http.csrf(c -> c.disable())
+        .headers(h -> h.addHeaderWriter(new DelegatingRequestMatcherHeaderWriter(
+            SecurityConfig::isPage, new StaticHeadersWriter("Content-Security-Policy",
+                PAGE_POLICY))))
         .sessionManagement(s -> s.sessionCreationPolicy(SessionCreationPolicy.STATELESS))
         .httpBasic(b -> b.authenticationEntryPoint(problems))
         .exceptionHandling(e -> e.authenticationEntryPoint(problems).accessDeniedHandler(problems))
@@ -64,7 +82,8 @@ class SecurityConfig {
             .requestMatchers(GET, "/actuator/health", "/actuator/health/**").permitAll()
             .requestMatchers("/api/v1/openapi", "/api/v1/openapi/**", "/api/v1/docs",
                 "/api/v1/docs/**", "/swagger-ui/**").permitAll()
-            .requestMatchers(GET, "/", "/agent", "/manager", "/pages/**", "/error").permitAll()
+            // The pages hold no data; they call the API below with the caller's own credentials.
+            .requestMatchers(GET, "/", "/desk", "/manage", "/pages/**", "/error").permitAll()
             .requestMatchers(POST, "/api/v1/suggestions").hasAnyRole("AGENT", "MANAGER")
             .requestMatchers(POST, "/api/v1/decisions").hasAnyRole("AGENT", "MANAGER", "QUEUE")
             .requestMatchers(POST, "/api/v1/queue/tickets").hasRole("QUEUE")

@@ -109,6 +109,22 @@ class SecurityTest {
   }
 
   @Test
+  void pagesAreOpenWithAContentPolicyAndTheirCallsGetNoBrowserPasswordDialog() {
+    for (String page : List.of("/", "/desk", "/manage", "/pages/desk.js")) {
+      Reply r = http.get(page, Caller.NOBODY);
+      assertEquals(200, r.status(), page);
+      assertTrue(r.header("Content-Security-Policy").contains("script-src 'self'"), page);
+    }
+    Reply plain = http.get("/api/v1/threshold", Caller.NOBODY);
+    assertEquals("Basic realm=\"precedent\"", plain.header("WWW-Authenticate"));
+    Reply fromPage = http.get("/api/v1/threshold", new Caller("X-Requested-With",
+        "XMLHttpRequest"));
+    assertEquals(401, fromPage.status());
+    assertEquals(null, fromPage.header("WWW-Authenticate"));
+    assertEquals(null, plain.header("Content-Security-Policy"));
+  }
+
+  @Test
   void configuredEntriesMustNameAKnownRole() {
     var e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
         () -> Credentials.parse("precedent.security.users", "ana:secret:boss"));

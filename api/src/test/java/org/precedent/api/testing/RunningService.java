@@ -20,7 +20,11 @@ public final class RunningService implements AutoCloseable {
   }
 
   public static RunningService start(String... settings) {
-    Path data = TrainedData.copy();
+    return startOn(TrainedData.copy(), settings);
+  }
+
+  /** The service over {@code data}, a copy the caller prepared (it is deleted on close). */
+  public static RunningService startOn(Path data, String... settings) {
     try {
       return new RunningService(data, PrecedentServer.start(data, 0, List.of(settings)));
     } catch (IOException e) {

@@ -1,0 +1,139 @@
+'use strict';
+// The agent's desk: ask, read the decision and the ranked answers, and say what was done with them.
+(() => {
+  const { el, call, problem, setStatus, percent } = Precedent;
+
+  const REASONS = {
+    no_candidate: 'No past answer is close enough to propose.',
+    safety_rule: 'The question touches a safety rule, so a person must answer.',
+    human_only: 'This kind of question is answered by people only.',
+    below_threshold: 'Precedent is not sure enough to reply on its own.',
+  };
+
+  let asked = null; // the question and ticket id the shown suggestions answer
+
+  function decision(d) {
+    const reply = d.outcome === 'REPLY';
+    const box = el('section', { class: 'card decision ' + (reply ? 'reply' : 'hand-off'),
+      id: 'decision', 'aria-labelledby': 'outcome' },
+      el('p', { class: 'outcome', id: 'outcome' },
+        reply ? 'REPLY: Precedent would answer this on its own' : 'HAND OFF: a person answers this'),
+      el('p', { class: 'figures' }, 'Confidence ' + percent(d.confidence) + ', needed '
+        + percent(d.threshold) + (d.modelVersion ? ' · model ' + d.modelVersion : '')));
+    if (d.caution) {
+      box.append(el('div', { class: 'caution', role: 'alert', id: 'caution' },
+        el('h3', {}, 'Caution' + (d.safetyTopic ? ' (' + d.safetyTopic + ')' : '')
+          + ': tell the customer this first'),
+        el('p', {}, d.caution)));
+    }
+    if (reply) {
+      box.append(el('h3', {}, 'The reply'), el('p', { class: 'answer' }, d.reply));
+    } else {
+      box.append(el('p', { id: 'reason' }, REASONS[d.reason] || ('Reason: ' + d.reason)));
+    }
+    if (d.explanation) box.append(el('p', { class: 'figures' }, d.explanation));
+    if (d.truncated) box.append(el('p', { class: 'figures' }, 'The question was long: only its start was read.'));
+    return box;
+  }
+
+  async function sendFeedback(c, verdict, finalText, area) {
+    const buttons = area.querySelectorAll('button');
+    buttons.forEach(b => { b.disabled = true; });
+    const status = area.querySelector('.status');
+    setStatus(status, 'Saving…');
+    const body = { question: asked.question, answerGroup: c.answerGroup, verdict };
+    if (asked.ticketId) body.ticketId = asked.ticketId;
+    if (finalText !== undefined) body.finalText = finalText;
+    const r = await call('POST', '/api/v1/feedback', body);
+    if (r.status === 201) {
+      status.className = 'status confirmation';
+      status.textContent = 'Recorded: ' + r.json.verdict.toLowerCase() + ' (feedback #' + r.json.id + ')';
+    } else {
+      setStatus(status, 'Not recorded: ' + problem(r), true);
+      buttons.forEach(b => { b.disabled = false; });
+    }
+  }
+
+  function feedback(c) {
+    const status = el('p', { class: 'status', role: 'status' });
+    const editor = el('div', { hidden: true, class: 'editor' });
+    const area = el('div', { class: 'feedback' });
+    const text = el('textarea', { 'aria-label': 'Answer as you will send it', class: 'final-text' });
+    text.value = c.answer;
+    editor.append(el('label', {}, 'The answer as you will send it'), text,
+      el('div', { class: 'actions' }, el('button', { type: 'button', class: 'primary send-edit',
+        onclick: () => {
+          if (!text.value.trim()) return setStatus(status, 'The edited answer is empty.', true);
+          sendFeedback(c, 'EDITED', text.value, area);
+        } }, 'Send edited answer')));
+    area.append(el('div', { class: 'actions' },
+      el('button', { type: 'button', class: 'accept', onclick: () => sendFeedback(c, 'ACCEPTED', undefined, area) }, 'Accept'),
+      el('button', { type: 'button', class: 'edit', onclick: () => { editor.hidden = false; text.focus(); } }, 'Edit'),
+      el('button', { type: 'button', class: 'reject', onclick: () => sendFeedback(c, 'REJECTED', undefined, area) }, 'Reject')),
+    editor, status);
+    return area;
+  }
+
+  function suggestion(c) {
+    const p = Precedent.num(c.probability);
+    return el('li', { class: 'card suggestion', 'data-answer-group': c.answerGroup },
+      el('div', { class: 'suggestion-head' },
+        el('span', { class: 'rank', 'aria-label': 'rank ' + c.rank }, c.rank),
+        el('span', { class: 'meter', 'aria-hidden': 'true' }, meterFill(p)),
+        el('span', {}, 'Chance it fits ' + percent(p, 0)),
+        el('span', { class: 'figures' }, 'used in ' + c.usedTimes + ' past tickets'
+          + (c.category ? ' · ' + c.category : ''))),
+      el('p', { class: 'answer' }, c.answer),
+      Evidence.list(c.evidence, c.rank === 1),
+      feedback(c));
+  }
+
+  // The bar's width is set through the CSSOM, which the page's content policy allows.
+  function meterFill(p) {
+    const fill = el('span');
+    fill.style.width = (Number.isFinite(p) ? Math.round(100 * p) : 0) + '%';
+    return fill;
+  }
+
+  function show(d) {
+    const result = document.getElementById('result');
+    result.replaceChildren(decision(d));
+    const list = d.candidates || [];
+    result.append(el('h2', {}, list.length ? 'Past answers, best first' : 'No past answer fits this question'));
+    result.append(el('p', { class: 'figures' }, 'The question as Precedent read it (cleaned and redacted): ',
+      el('q', { id: 'read-question' }, d.question)));
+    if (list.length) result.append(el('ol', { class: 'suggestions', id: 'suggestions' }, list.map(suggestion)));
+  }
+
+  async function ask(ev) {
+    ev.preventDefault();
+    const form = ev.target;
+    const question = form.elements['question'].value;
+    const category = form.elements['category'].value.trim();
+    const ticketId = form.elements['ticket-id'].value.trim();
+    const status = document.getElementById('ask-status');
+    if (!question.trim()) return setStatus(status, 'Type the question first.', true);
+    const button = document.getElementById('ask');
+    button.disabled = true;
+    setStatus(status, 'Looking through past tickets…');
+    try {
+      const body = { question, limit: 5 };
+      if (category) body.category = category;
+      const r = await call('POST', '/api/v1/suggestions', body);
+      if (r.status === 200) {
+        asked = { question, ticketId };
+        show(r.json);
+        setStatus(status, '');
+      } else if (r.status !== 401) {
+        setStatus(status, problem(r), true);
+      }
+    } finally {
+      button.disabled = false;
+    }
+  }
+
+  document.addEventListener('DOMContentLoaded', () => {
+    document.getElementById('ask-form').addEventListener('submit', ask);
+    Precedent.start(() => document.getElementById('question').focus());
+  });
+})();
