@@ -35,6 +35,8 @@ import org.apache.commons.csv.CSVPrinter;
 public final class DemoTicketGenerator {
 
   public static final long DEFAULT_SEED = 20261201L;
+  /** One-off replies a new one-off is kept distinct from. */
+  private static final int ONE_OFF_WINDOW = 1000;
   public static final int DEFAULT_COUNT = 3600;
   public static final int DEFAULT_HELD_OUT = 600;
   public static final List<String> HEADER =
@@ -119,8 +121,11 @@ public final class DemoTicketGenerator {
    * Redraws a one-off until its reply shares few words with every earlier one-off reply, keeping the most
    * distinct draw if none is distinct enough: a one-off answer must not quietly become a reusable one.
    */
-  private static DemoTicket distinctOneOff(DemoTicket first, List<Set<String>> earlier, String id, int number,
+  private static DemoTicket distinctOneOff(DemoTicket first, List<Set<String>> all, String id, int number,
       Instant created, Random r) {
+    // Compared with the latest one-offs only, so that generating 100,000 tickets for a benchmark stays
+    // linear; the demo's few hundred one-offs are all within the window.
+    List<Set<String>> earlier = all.subList(Math.max(0, all.size() - ONE_OFF_WINDOW), all.size());
     DemoTicket best = first;
     double bestSimilarity = DemoOneOffs.maxSimilarity(DemoOneOffs.replyWords(first.reply()), earlier);
     for (int attempt = 0; attempt < 40 && bestSimilarity > ONE_OFF_MAX_SIMILARITY; attempt++) {
