@@ -35,9 +35,9 @@ import picocli.CommandLine.ParentCommand;
 import picocli.CommandLine.Spec;
 
 @Command(name = "demo", mixinStandardHelpOptions = true,
-    description = {"Runs Precedent on the bundled demo help desk (invented data): ingests its "
-        + "resolved tickets,", "builds the index, measures candidate recall on the held-out "
-        + "tickets and answers sample questions.",
+    description = {"Runs the whole job on the bundled demo help desk (invented data).",
+        "Ingests its resolved tickets, builds the index, measures candidate recall, trains,",
+        "evaluates on the held-out tickets, decides sample questions and starts the service.",
         "Its data directory defaults to ~/.precedent-demo, apart from your own."})
 final class DemoCommand implements Callable<Integer> {
   @ParentCommand

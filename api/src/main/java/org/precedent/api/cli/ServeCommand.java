@@ -18,8 +18,9 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 @Command(name = "serve", mixinStandardHelpOptions = true,
-    description = {"Runs the HTTP service on the active model of the data directory: suggestions,",
-        "decisions, the ticket queue, feedback, thresholds and model versions (JSON under /api/v1,",
+    description = {"Runs the HTTP service and its pages on the active model.",
+        "Suggestions, decisions, the ticket queue, feedback, thresholds and model versions (JSON",
+        "under /api/v1,",
         "OpenAPI at /api/v1/openapi). Stop it with Ctrl-C; queued tickets are kept.",
         "Further settings as --name=value after the options (see application.properties)."})
 final class ServeCommand implements Callable<Integer> {

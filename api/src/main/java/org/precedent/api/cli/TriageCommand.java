@@ -24,7 +24,8 @@ import picocli.CommandLine.ParentCommand;
 import picocli.CommandLine.Spec;
 
 @Command(name = "triage", mixinStandardHelpOptions = true,
-    description = {"Decides a file of new tickets (CSV or JSON Lines, the same column options as",
+    description = {"Decides a file of new tickets, resumably.",
+        "Input: CSV or JSON Lines, the same column options as",
         "ingest; no reply column needed) and writes one JSON line per ticket: reply or hand-off,",
         "with reason, confidence, caution and explanation. Interrupted, it resumes where it",
         "stopped when run again with the same --in and --out."})
