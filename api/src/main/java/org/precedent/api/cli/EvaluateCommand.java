@@ -104,7 +104,7 @@ final class EvaluateCommand implements Callable<Integer> {
    * @param json      where the JSON report was written
    */
   record Evaluation(EvaluationReport report, List<HeldOutRuns.HeldOutQuestion> questions, Path html,
-      Path json) {}
+      Path json, long safetyHandOffs) {}
 
   /** Runs the three systems over parsed held-out tickets and writes the reports into {@code dir}. */
   static Evaluation evaluate(ActiveModel active, Ingestor.ParsedExport parsed, String dataset,
@@ -130,7 +130,10 @@ final class EvaluateCommand implements Callable<Integer> {
     ReportFiles.writeJson(report, json);
     ReportFiles.writeJson(report, dir.resolve("latest.json"));
     ReportFiles.writeHtml(HtmlReport.render(report, previous), html);
-    return new Evaluation(report, questions, html, json);
+    // The report measures the model; in service the safety rules hand these off whatever it says.
+    long safetyHandOffs = questions.stream()
+        .filter(q -> active.safety().check(q.question(), q.category(), null).isPresent()).count();
+    return new Evaluation(report, questions, html, json, safetyHandOffs);
   }
 
   /** Puts the fused system's guaranteed threshold in force, when there is one. */
@@ -165,6 +168,9 @@ final class EvaluateCommand implements Callable<Integer> {
           m.auroc(), m.coverageAt95());
     }
     w.println(fused(report).recommendation().explanation());
+    w.printf(Locale.ROOT, "%d of these tickets fall under a safety rule or a people-only category: in "
+        + "service they are handed off whatever the confidence (the figures above measure the model "
+        + "alone)%n", result.safetyHandOffs());
     w.println("report: " + result.html());
     w.println("        " + result.json());
   }
