@@ -128,9 +128,7 @@ final class ClincBenchmark implements Callable<Integer> {
       out.println("Larson et al. 2019, Table 2 (Full, oos-threshold): BERT 96.2 / 52.3, MLP 93.4 / "
           + "49.1, CNN 90.9 / 30.9, FastText 88.6 / 28.3, linear SVM 88.2 / 18.0");
     } finally {
-      try (var walk = Files.walk(scratch)) {
-        walk.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-      }
+      org.precedent.knowledge.store.AtomicFiles.deleteTree(scratch);
     }
     return 0;
   }

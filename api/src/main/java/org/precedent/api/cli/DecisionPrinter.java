@@ -44,8 +44,7 @@ final class DecisionPrinter {
           c.rerank().perTokenLogLikelihood(), c.candidate().group().size());
       out.println("   " + Text.abbreviate(c.candidate().group().canonical(), 160));
       for (Evidence e : c.candidate().evidence()) {
-        out.printf(Locale.ROOT, "   - %s  %.2f  %s%n", e.ticketId(), e.score(),
-            Text.abbreviate(e.highlighted("*", "*"), 110));
+        out.println(RetrievalPrinter.evidenceLine(e));
       }
     }
     out.println();

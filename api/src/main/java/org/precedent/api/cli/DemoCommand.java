@@ -96,8 +96,9 @@ final class DemoCommand implements Callable<Integer> {
         mapping, Progress.silent());
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
       List<CandidateRecall.Case> cases = new ArrayList<>();
+      var replyMatcher = grouper.matcher(knowledge.grouping());
       for (Ticket t : heldOut.tickets()) {
-        Optional<AnswerGroup> right = grouper.match(knowledge.grouping(), t.reply());
+        Optional<AnswerGroup> right = replyMatcher.apply(t.reply());
         if (right.isPresent()) {
           cases.add(new CandidateRecall.Case(t.question(), right.get().id()));
         }

@@ -109,13 +109,12 @@ final class EvaluateCommand implements Callable<Integer> {
   /** Runs the three systems over parsed held-out tickets and writes the reports into {@code dir}. */
   static Evaluation evaluate(ActiveModel active, Ingestor.ParsedExport parsed, String dataset,
       double target, Path dir, EvaluationReport previous) throws java.io.IOException {
-    AnswerGrouper grouper = AnswerGrouper.standard();
+    var replyMatcher = AnswerGrouper.standard().matcher(active.knowledge().grouping());
     List<HeldOutRuns.HeldOutQuestion> questions = new ArrayList<>();
     var groups = active.knowledge().grouping().byId();
     for (Ticket t : parsed.tickets()) {
       String right = t.label() != null ? (groups.containsKey(t.label()) ? t.label() : null)
-          : grouper.match(active.knowledge().grouping(), t.reply()).map(AnswerGroup::id)
-              .orElse(null);
+          : replyMatcher.apply(t.reply()).map(AnswerGroup::id).orElse(null);
       questions.add(new HeldOutRuns.HeldOutQuestion(t.id(), t.question(), t.category(), right));
     }
     var runs = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),

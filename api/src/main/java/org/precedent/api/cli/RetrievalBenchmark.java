@@ -91,9 +91,7 @@ final class RetrievalBenchmark implements Callable<Integer> {
             percentile(nanos, 0.99) / 1e6, nanos[nanos.length - 1] / 1e6, queries);
       }
     } finally {
-      try (var walk = Files.walk(scratch)) {
-        walk.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-      }
+      org.precedent.knowledge.store.AtomicFiles.deleteTree(scratch);
     }
     return 0;
   }

@@ -43,7 +43,12 @@ final class RetrievalPrinter {
   }
 
   private void printEvidence(Evidence e) {
-    out.printf(Locale.ROOT, "   - %s  %.2f  %s%n", e.ticketId(), e.score(),
+    out.println(evidenceLine(e));
+  }
+
+  /** One evidence ticket on one line: id, BM25 score, question with matched terms *marked*. */
+  static String evidenceLine(Evidence e) {
+    return String.format(Locale.ROOT, "   - %s  %.2f  %s", e.ticketId(), e.score(),
         Text.abbreviate(e.highlighted("*", "*"), 110));
   }
 }

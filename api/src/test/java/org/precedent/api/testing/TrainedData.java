@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
@@ -103,10 +102,8 @@ public final class TrainedData {
     if (dir == null || !Files.exists(dir)) {
       return;
     }
-    try (Stream<Path> paths = Files.walk(dir)) {
-      for (Path p : paths.sorted(Comparator.reverseOrder()).toList()) {
-        Files.deleteIfExists(p);
-      }
+    try {
+      org.precedent.knowledge.store.AtomicFiles.deleteTree(dir);
     } catch (IOException e) {
       // A temp directory left behind is harmless; the test result is what matters.
     }

@@ -27,10 +27,8 @@ public final class TinyModel {
   }
 
   static void deleteTree(Path dir) {
-    try (var paths = Files.walk(dir)) {
-      for (Path p : paths.sorted(java.util.Comparator.reverseOrder()).toList()) {
-        Files.deleteIfExists(p);
-      }
+    try {
+      org.precedent.knowledge.store.AtomicFiles.deleteTree(dir);
     } catch (IOException ignored) {
       // a temporary directory left behind is harmless
     }

@@ -76,17 +76,29 @@ public final class AnswerGrouper {
 
   /** The group whose canonical answer a reply reuses (Jaccard at or above the threshold), if any. */
   public Optional<AnswerGroup> match(Grouping grouping, String cleanedReply) {
-    long[] shingles = Shingles.of(cleanedReply);
-    AnswerGroup best = null;
-    double bestScore = threshold;
-    for (AnswerGroup group : grouping.groups()) {
-      double score = Shingles.jaccard(shingles, Shingles.of(group.canonical()));
-      if (score >= bestScore) {
-        best = group;
-        bestScore = score;
+    return matcher(grouping).apply(cleanedReply);
+  }
+
+  /**
+   * {@link #match} for many replies against one grouping: the canonical answers' shingles are
+   * computed once.
+   */
+  public java.util.function.Function<String, Optional<AnswerGroup>> matcher(Grouping grouping) {
+    List<AnswerGroup> groups = grouping.groups();
+    List<long[]> canonical = groups.stream().map(g -> Shingles.of(g.canonical())).toList();
+    return cleanedReply -> {
+      long[] shingles = Shingles.of(cleanedReply);
+      AnswerGroup best = null;
+      double bestScore = threshold;
+      for (int i = 0; i < groups.size(); i++) {
+        double score = Shingles.jaccard(shingles, canonical.get(i));
+        if (score >= bestScore) {
+          best = groups.get(i);
+          bestScore = score;
+        }
       }
-    }
-    return Optional.ofNullable(best);
+      return Optional.ofNullable(best);
+    };
   }
 
   private Grouping byLabel(List<Ticket> tickets) {

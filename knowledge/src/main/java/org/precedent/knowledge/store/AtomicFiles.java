@@ -89,6 +89,18 @@ public final class AtomicFiles {
     }
   }
 
+  /** Removes a directory and everything in it; nothing happens when it is absent. */
+  public static void deleteTree(Path dir) throws IOException {
+    if (!Files.exists(dir)) {
+      return;
+    }
+    try (java.util.stream.Stream<Path> walk = Files.walk(dir)) {
+      for (Path p : walk.sorted(java.util.Comparator.reverseOrder()).toList()) {
+        Files.deleteIfExists(p);
+      }
+    }
+  }
+
   public static void writeString(Path target, String text) throws IOException {
     write(target, out -> out.write(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
   }

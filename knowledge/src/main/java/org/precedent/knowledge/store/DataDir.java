@@ -9,7 +9,6 @@ import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Optional;
 import java.util.stream.Stream;
@@ -74,7 +73,7 @@ public final class DataDir {
     for (Path old : generations()) {
       boolean keep = old.equals(generation) || previous.map(old::equals).orElse(false);
       if (!keep) {
-        deleteTree(old);
+        AtomicFiles.deleteTree(old);
       }
     }
   }
@@ -82,7 +81,7 @@ public final class DataDir {
   /** Removes an unfinished generation left by a failed or interrupted change. */
   static void discard(Path generation) {
     try {
-      deleteTree(generation);
+      AtomicFiles.deleteTree(generation);
     } catch (IOException e) {
       // Left for the next activation to remove.
     }
@@ -121,16 +120,5 @@ public final class DataDir {
 
   private static int number(Path generation) {
     return Integer.parseInt(generation.getFileName().toString().substring(GENERATION_PREFIX.length()));
-  }
-
-  static void deleteTree(Path dir) throws IOException {
-    if (!Files.exists(dir)) {
-      return;
-    }
-    try (Stream<Path> walk = Files.walk(dir)) {
-      for (Path p : walk.sorted(Comparator.reverseOrder()).toList()) {
-        Files.deleteIfExists(p);
-      }
-    }
   }
 }

@@ -83,7 +83,7 @@ public final class ModelStore {
         }
       }
     } finally {
-      deleteTree(staging);
+      AtomicFiles.deleteTree(staging);
     }
   }
 
@@ -226,14 +226,4 @@ public final class ModelStore {
     return p;
   }
 
-  private static void deleteTree(Path dir) throws IOException {
-    if (!Files.exists(dir)) {
-      return;
-    }
-    try (var paths = Files.walk(dir)) {
-      for (Path p : paths.sorted(java.util.Comparator.reverseOrder()).toList()) {
-        Files.deleteIfExists(p);
-      }
-    }
-  }
 }
