@@ -24,12 +24,14 @@ final class PolicyFile {
   private final String source;
   private String emergencyNumber;
   private Boolean includeDefaults;
+  private Set<String> tradePacks;
+  private int tradePacksLine;
   private final Set<String> categories = new LinkedHashSet<>();
   private final Set<String> groups = new LinkedHashSet<>();
   private final Map<String, FileRule> rules = new LinkedHashMap<>();
   private final Map<String, FileCaution> cautions = new LinkedHashMap<>();
 
-  private record FileRule(String id, String topic, Pattern pattern) {
+  private record FileRule(String id, String topic, SafetyRule.Specificity specificity, Pattern pattern) {
   }
 
   private record FileCaution(String text, int line) {
@@ -92,26 +94,61 @@ final class PolicyFile {
         }
         includeDefaults = Boolean.valueOf(value);
       }
+      case "trade-packs" -> readTradePacks(value, no);
       case "human-only-category" -> categories.add(id(value, "category", no));
       case "human-only-group" -> groups.add(id(value, "group", no));
       default -> throw error(no, "unknown setting '" + key + "'");
     }
   }
 
-  /** {@code rule <id> | <topic> | <pattern>}; the pattern is the rest of the line, so it may hold '|'. */
+  /** {@code trade-packs = <pack>, <pack>} or {@code trade-packs = none}: the packs added to the general part. */
+  private void readTradePacks(String value, int no) throws IOException {
+    if (tradePacks != null) {
+      throw error(no, "trade-packs is given twice");
+    }
+    Set<String> packs = new LinkedHashSet<>();
+    if (!value.equals("none")) {
+      for (String part : value.split(",", -1)) {
+        String pack = part.strip();
+        if (!DefaultRules.TRADE_PACKS.contains(pack)) {
+          throw error(no, "unknown trade pack '" + pack + "'; known: " + String.join(", ",
+              DefaultRules.TRADE_PACKS.stream().sorted().toList()) + ", or none");
+        }
+        if (!packs.add(pack)) {
+          throw error(no, "trade pack " + pack + " is named twice");
+        }
+      }
+    }
+    tradePacks = packs;
+    tradePacksLine = no;
+  }
+
+  /**
+   * {@code rule <id> [situation|sign] | <topic> | <pattern>}; the pattern is the rest of the line, so it may hold
+   * '|'. Without a specificity word the rule names a situation, as a help desk's own rule usually does.
+   */
   private void readRule(String rest, int no) throws IOException {
     String[] parts = rest.split("\\|", 3);
     if (parts.length < 3 || parts[2].isBlank()) {
-      throw error(no, "expected 'rule <id> | <topic> | <pattern>'");
+      throw error(no, "expected 'rule <id> | <topic> | <pattern>', or 'rule <id> sign | <topic> | <pattern>' for a "
+          + "rule that names only a sign");
     }
-    String id = name(parts[0].strip(), "rule id", no);
+    String[] head = parts[0].strip().split(" +");
+    String id = name(head[0], "rule id", no);
+    SafetyRule.Specificity specificity = SafetyRule.Specificity.SITUATION;
+    if (head.length == 2) {
+      specificity = specificity(head[1], id, no);
+    } else if (head.length > 2) {
+      throw error(no, "rule id must be one word, optionally followed by situation or sign, found: '"
+          + parts[0].strip() + "'");
+    }
     String topic = name(parts[1].strip(), "topic", no);
     if (rules.containsKey(id)) {
       throw error(no, "rule " + id + " is defined twice");
     }
     String regex = parts[2].strip();
     try {
-      rules.put(id, new FileRule(id, topic, SafetyPolicy.compile(regex)));
+      rules.put(id, new FileRule(id, topic, specificity, SafetyPolicy.compile(regex)));
     } catch (PatternSyntaxException e) {
       throw error(no, "bad pattern for rule " + id + ": " + e.getDescription() + " near index " + e.getIndex()
           + " of '" + regex + "'");
@@ -133,11 +170,18 @@ final class PolicyFile {
 
   private SafetyPolicy build() throws IOException {
     String line = emergencyNumber == null ? Cautions.DEFAULT_EMERGENCY_LINE : EMERGENCY_PREFIX + emergencyNumber;
+    boolean defaults = includeDefaults == null || includeDefaults;
+    if (!defaults && tradePacks != null) {
+      throw error(tradePacksLine, "trade-packs chooses built-in rules, but include-defaults is false");
+    }
+    // Without trade-packs, every pack: the same reasons as SafetyPolicy.defaults(), and older files keep their rules.
+    Set<String> packs = tradePacks == null ? DefaultRules.TRADE_PACKS : tradePacks;
     // A rule from the file replaces a built-in rule of the same id in its place; new ids come after.
     Map<String, FileRule> merged = new LinkedHashMap<>();
-    if (includeDefaults == null || includeDefaults) {
-      for (DefaultRules.Spec spec : DefaultRules.ALL) {
-        merged.put(spec.id(), new FileRule(spec.id(), spec.topic(), SafetyPolicy.compile(spec.regex())));
+    if (defaults) {
+      for (DefaultRules.Spec spec : DefaultRules.forPacks(packs)) {
+        merged.put(spec.id(), new FileRule(spec.id(), spec.topic(), spec.specificity(),
+            SafetyPolicy.compile(spec.regex())));
       }
     }
     merged.putAll(rules);
@@ -152,7 +196,7 @@ final class PolicyFile {
     for (FileRule r : merged.values()) {
       FileCaution own = cautions.get(r.topic());
       String caution = own != null ? Cautions.compose(own.text(), line) : Cautions.forTopic(r.topic(), line);
-      built.add(new SafetyRule(r.id(), r.topic(), r.pattern(), caution));
+      built.add(new SafetyRule(r.id(), r.topic(), r.specificity(), r.pattern(), caution));
     }
     return new SafetyPolicy(built, groups, categories, line);
   }
@@ -162,6 +206,15 @@ final class PolicyFile {
       throw error(no, what + " must be lower-case letters, digits, '.', '_' or '-', found: '" + value + "'");
     }
     return value;
+  }
+
+  private SafetyRule.Specificity specificity(String word, String id, int no) throws IOException {
+    for (SafetyRule.Specificity s : SafetyRule.Specificity.values()) {
+      if (s.word().equals(word)) {
+        return s;
+      }
+    }
+    throw error(no, "rule " + id + ": specificity must be situation or sign, found: '" + word + "'");
   }
 
   private String id(String value, String what, int no) throws IOException {

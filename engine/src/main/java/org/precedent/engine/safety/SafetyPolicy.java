@@ -20,6 +20,13 @@ import java.util.regex.Pattern;
  * category, and the proposed answer group. Term rules come first because their caution speaks to the risk itself
  * (leave the building, don't drink the water), while the other two can only give the general caution.
  *
+ * <p>Every term rule is tried, and the finding lists all that match in precedence order: rules naming the situation
+ * ({@link SafetyRule.Specificity#SITUATION}) before rules naming only a sign of it
+ * ({@link SafetyRule.Specificity#SIGN}), and among equals, the policy's rule order, in which the built-in rules run
+ * from the most urgent risk to the least. Precedence by specificity first: a sign such as a foul smell is produced
+ * by several situations, and when the words also name one of them (sewage coming up through the drain), that is
+ * what is happening, so its advice is what the customer needs first; the sign's own caution still follows.
+ *
  * <p>Immutable and safe to share between threads.
  */
 public final class SafetyPolicy {
@@ -41,13 +48,17 @@ public final class SafetyPolicy {
   }
 
   /**
-   * The built-in rules, with cautions naming {@value Cautions#DEFAULT_EMERGENCY_LINE}. No category or group is
-   * human-only: those names belong to each help desk, so only its policy file can give them.
+   * The built-in rules: the general part and every trade pack, with cautions naming
+   * {@value Cautions#DEFAULT_EMERGENCY_LINE}. Every pack, because without a policy file nobody has said what trade
+   * the help desk serves, and what a pack's rules name (sewage in the house, a power line down) puts someone at risk
+   * whichever desk hears of it; a policy file can narrow the packs. No category or group is human-only: those names
+   * belong to each help desk, so only its policy file can give them.
    */
   public static SafetyPolicy defaults() {
-    return new SafetyPolicy(compileDefaults(Cautions.DEFAULT_EMERGENCY_LINE), Set.of(), Set.of(),
-        Cautions.DEFAULT_EMERGENCY_LINE);
+    return new SafetyPolicy(compileDefaults(DefaultRules.TRADE_PACKS, Cautions.DEFAULT_EMERGENCY_LINE), Set.of(),
+        Set.of(), Cautions.DEFAULT_EMERGENCY_LINE);
   }
+
 
   /**
    * Reads a policy file (format in the package description).
@@ -68,7 +79,8 @@ public final class SafetyPolicy {
   }
 
   /**
-   * The first reason the ticket must go to a person, or empty if Precedent may answer it.
+   * Why the ticket must go to a person, or empty if Precedent may answer it. When term rules match, the finding
+   * names the first in precedence and lists them all, and its caution holds every matched topic's text.
    *
    * @param question the customer's question, cleaned and redacted
    * @param category the ticket's category, or null when not yet known
@@ -76,13 +88,12 @@ public final class SafetyPolicy {
    */
   public Optional<SafetyFinding> check(String question, String category, String answerGroupId) {
     Objects.requireNonNull(question, "question");
-    String text = prepare(question);
-    for (SafetyRule rule : rules) {
-      Matcher m = rule.pattern().matcher(text);
-      if (m.find()) {
-        return Optional.of(new SafetyFinding(rule.id(), rule.topic(), m.group(), SafetyFinding.Kind.TERM,
-            rule.caution()));
-      }
+    List<SafetyFinding.Match> matches = matches(prepare(question));
+    if (!matches.isEmpty()) {
+      SafetyFinding.Match first = matches.get(0);
+      String caution = Cautions.combine(matches.stream().map(SafetyFinding.Match::caution).toList());
+      return Optional.of(new SafetyFinding(first.ruleId(), first.topic(), first.matched(), SafetyFinding.Kind.TERM,
+          caution, matches));
     }
     if (category != null && humanOnlyCategories.contains(category.strip().toLowerCase(Locale.ROOT))) {
       return Optional.of(new SafetyFinding("human-only-category", "human-only", category.strip(),
@@ -95,7 +106,24 @@ public final class SafetyPolicy {
     return Optional.empty();
   }
 
-  /** The term rules, in the order they are tried. */
+  /** Every rule matching the prepared text, in precedence order: by specificity, then by rule order. */
+  private List<SafetyFinding.Match> matches(String text) {
+    List<SafetyFinding.Match> found = new ArrayList<>();
+    for (SafetyRule.Specificity level : SafetyRule.Specificity.values()) {
+      for (SafetyRule rule : rules) {
+        if (rule.specificity() != level) {
+          continue;
+        }
+        Matcher m = rule.pattern().matcher(text);
+        if (m.find()) {
+          found.add(new SafetyFinding.Match(rule.id(), rule.topic(), rule.specificity(), m.group(), rule.caution()));
+        }
+      }
+    }
+    return found;
+  }
+
+  /** The term rules, in the policy's order, which breaks ties between rules of the same specificity. */
   public List<SafetyRule> rules() {
     return rules;
   }
@@ -123,10 +151,10 @@ public final class SafetyPolicy {
     return Pattern.compile("(?<!\\w)(?:" + regex + ")(?!\\w)", Pattern.CASE_INSENSITIVE | Pattern.UNICODE_CASE);
   }
 
-  static List<SafetyRule> compileDefaults(String emergencyLine) {
+  static List<SafetyRule> compileDefaults(Set<String> tradePacks, String emergencyLine) {
     List<SafetyRule> out = new ArrayList<>();
-    for (DefaultRules.Spec spec : DefaultRules.ALL) {
-      out.add(new SafetyRule(spec.id(), spec.topic(), compile(spec.regex()),
+    for (DefaultRules.Spec spec : DefaultRules.forPacks(tradePacks)) {
+      out.add(new SafetyRule(spec.id(), spec.topic(), spec.specificity(), compile(spec.regex()),
           Cautions.forTopic(spec.topic(), emergencyLine)));
     }
     return out;

@@ -13,7 +13,8 @@ import org.junit.jupiter.api.Test;
 class CautionsTest {
 
   private static final List<String> TOPICS = List.of("water-quality", "sewage", "burst-main", "gas", "electricity",
-      "health", "legal", "money-dispute");
+      "health", "legal", "money-dispute", "distress", "emergency", "account-security", "lost-stolen", "fraud",
+      "vulnerable-supply");
 
   private static List<String> allCautions() {
     List<String> all = new ArrayList<>();
@@ -72,6 +73,26 @@ class CautionsTest {
     assertTrue(Cautions.forTopic("health").contains("medical advice"));
     assertTrue(Cautions.forTopic("legal").contains("a person will review"));
     assertTrue(Cautions.forTopic("money-dispute").contains("a person will review"));
+    assertTrue(Cautions.forTopic("money-dispute").contains("disputed charge, refund or debt"));
+    assertTrue(Cautions.forTopic("legal").contains("regulator or ombudsman"));
+    assertTrue(Cautions.forTopic("distress").contains("call your local emergency number now"));
+    assertTrue(Cautions.forTopic("emergency").contains("call your local emergency number now"));
+    assertTrue(Cautions.forTopic("account-security").contains("one-time codes"));
+    assertTrue(Cautions.forTopic("lost-stolen").contains("stop it being used"));
+    assertTrue(Cautions.forTopic("fraud").contains("a number you already trust"));
+    assertTrue(Cautions.forTopic("vulnerable-supply").contains("medical equipment"));
+  }
+
+  @Test
+  void combiningCautionsKeepsEachTextOnceInOrderAndTheClosingOnceAtTheEnd() {
+    String gas = Cautions.forTopic("gas");
+    String sewage = Cautions.forTopic("sewage");
+    String combined = Cautions.combine(List.of(gas, sewage, gas));
+    String gasBody = gas.substring(0, gas.length() - Cautions.CLOSING.length()).strip();
+    String sewageBody = sewage.substring(0, sewage.length() - Cautions.CLOSING.length()).strip();
+    assertEquals(gasBody + " " + sewageBody + " " + Cautions.CLOSING, combined);
+    assertEquals(gas, Cautions.combine(List.of(gas)));
+    assertThrows(IllegalArgumentException.class, () -> Cautions.combine(List.of()));
   }
 
   @Test

@@ -133,6 +133,8 @@ class DefaultRulesTest {
       assertTrue(ids.add(r.id()), () -> "duplicate id " + r.id());
     }
     assertEquals(Set.of("water-quality", "sewage", "burst-main", "gas", "electricity", "health", "legal",
-        "money-dispute"), topics);
+        "money-dispute", "distress", "emergency", "account-security", "lost-stolen", "fraud", "vulnerable-supply"),
+        topics);
+    topics.forEach(t -> assertTrue(Cautions.hasBuiltIn(t), () -> "no built-in caution for " + t));
   }
 }

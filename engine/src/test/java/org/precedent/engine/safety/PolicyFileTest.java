@@ -87,6 +87,92 @@ class PolicyFileTest {
   }
 
   @Test
+  void tradePacksChooseWhichBuiltInPacksJoinTheGeneralPart() throws IOException {
+    SafetyPolicy water = SafetyPolicy.load(write("trade-packs = water-waste"));
+    assertTrue(water.check("sewage coming up in the garden", null, null).isPresent());
+    assertTrue(water.check("there's a power line down across the lane", null, null).isEmpty());
+    assertTrue(water.check("my card was stolen", null, null).isPresent(), "the general part is always in");
+
+    SafetyPolicy both = SafetyPolicy.load(write("trade-packs = energy, water-waste"));
+    assertEquals(ids(SafetyPolicy.defaults()), ids(both), "both packs are what the defaults hold");
+
+    SafetyPolicy none = SafetyPolicy.load(write("trade-packs = none"));
+    assertTrue(none.check("sewage coming up in the garden", null, null).isEmpty());
+    assertTrue(none.check("I can smell gas", null, null).isPresent());
+    assertTrue(none.rules().stream().map(SafetyRule::id).noneMatch(id -> id.startsWith("wq-")
+        || id.startsWith("energy-")));
+  }
+
+  @Test
+  void withoutTradePacksAFileKeepsEveryPackAsTheDefaultsDo() throws IOException {
+    assertEquals(ids(SafetyPolicy.defaults()), ids(SafetyPolicy.load(write("emergency-line = 1"))));
+  }
+
+  @Test
+  void choosingPacksKeepsTheBuiltInOrder() throws IOException {
+    List<String> all = ids(SafetyPolicy.defaults());
+    List<String> water = ids(SafetyPolicy.load(write("trade-packs = water-waste")));
+    assertEquals(all.stream().filter(water::contains).toList(), water);
+  }
+
+  @Test
+  void anUnknownTradePackIsRefusedNamingTheKnownOnes() throws IOException {
+    assertTrue(loadError("# x", "trade-packs = water-waste, telecoms")
+        .endsWith("safety.rules:2: unknown trade pack 'telecoms'; known: energy, water-waste, or none"));
+  }
+
+  @Test
+  void aTradePackNamedTwiceOrTradePacksGivenTwiceIsRefused() throws IOException {
+    assertTrue(loadError("trade-packs = energy, energy").contains(":1: trade pack energy is named twice"));
+    assertTrue(loadError("trade-packs = energy", "trade-packs = none").contains(":2: trade-packs is given twice"));
+    assertTrue(loadError("trade-packs = energy,").contains(":1: unknown trade pack ''"));
+  }
+
+  @Test
+  void tradePacksWithoutTheDefaultsIsRefusedAtItsLine() throws IOException {
+    assertTrue(loadError("include-defaults = false", "trade-packs = energy", "rule a | sewage | x")
+        .contains(":2: trade-packs chooses built-in rules, but include-defaults is false"));
+  }
+
+  @Test
+  void aRuleMayDeclareItselfASignAndIsASituationOtherwise() throws IOException {
+    SafetyPolicy policy = SafetyPolicy.load(write(
+        "rule pong sign | water-quality | pong",
+        "rule foam situation | sewage | foam",
+        "rule fish | sewage | dead fish"));
+    List<SafetyRule> rules = policy.rules();
+    assertEquals(SafetyRule.Specificity.SIGN, find(rules, "pong").specificity());
+    assertEquals(SafetyRule.Specificity.SITUATION, find(rules, "foam").specificity());
+    assertEquals(SafetyRule.Specificity.SITUATION, find(rules, "fish").specificity());
+  }
+
+  @Test
+  void aWrongSpecificityWordIsRefused() throws IOException {
+    assertTrue(loadError("rule pong smell | water-quality | pong")
+        .contains(":1: rule pong: specificity must be situation or sign, found: 'smell'"));
+    assertTrue(loadError("rule pong sign extra | water-quality | pong")
+        .contains(":1: rule id must be one word, optionally followed by situation or sign"));
+  }
+
+  private static List<String> ids(SafetyPolicy policy) {
+    return policy.rules().stream().map(SafetyRule::id).toList();
+  }
+
+  private static SafetyRule find(List<SafetyRule> rules, String id) {
+    return rules.stream().filter(r -> r.id().equals(id)).findFirst().orElseThrow();
+  }
+
+  @Test
+  void theDemoPolicyChoosesTheWaterAndWastePackOnly() throws IOException {
+    Path demo = Path.of(System.getProperty("precedent.root", ".."), "demo-data", "safety.rules");
+    SafetyPolicy policy = SafetyPolicy.load(demo);
+    List<String> ids = policy.rules().stream().map(SafetyRule::id).toList();
+    assertTrue(ids.containsAll(List.of("sewage-flooding", "wq-off-taste", "lost-stolen-payment", "distress-self-harm",
+        "tvww-river-pollution")), ids::toString);
+    assertTrue(ids.stream().noneMatch(id -> id.startsWith("energy-")), ids::toString);
+  }
+
+  @Test
   void aBadPatternNamesTheFileTheLineAndTheRegexError() throws IOException {
     String message = loadError("# line 1", "", "rule broken | sewage | sewage (coming");
     assertTrue(message.startsWith(dir.resolve("safety.rules") + ":3: bad pattern for rule broken: "), message);

@@ -94,9 +94,13 @@ class SafetyPolicyTest {
   void recordsRefuseIncompleteValues() {
     SafetyRule rule = SafetyPolicy.defaults().rules().get(0);
     assertThrows(IllegalArgumentException.class,
-        () -> new SafetyRule("Bad Id", "sewage", rule.pattern(), rule.caution()));
-    assertThrows(IllegalArgumentException.class, () -> new SafetyRule("ok", "sewage", rule.pattern(), " "));
-    assertThrows(NullPointerException.class, () -> new SafetyRule("ok", "sewage", null, rule.caution()));
+        () -> new SafetyRule("Bad Id", "sewage", SafetyRule.Specificity.SITUATION, rule.pattern(), rule.caution()));
+    assertThrows(IllegalArgumentException.class,
+        () -> new SafetyRule("ok", "sewage", SafetyRule.Specificity.SITUATION, rule.pattern(), " "));
+    assertThrows(NullPointerException.class,
+        () -> new SafetyRule("ok", "sewage", SafetyRule.Specificity.SITUATION, null, rule.caution()));
+    assertThrows(NullPointerException.class,
+        () -> new SafetyRule("ok", "sewage", null, rule.pattern(), rule.caution()));
     assertThrows(NullPointerException.class,
         () -> new SafetyFinding("ok", "sewage", "sewage coming", null, rule.caution()));
     assertThrows(IllegalArgumentException.class,
