@@ -85,10 +85,10 @@ public final class TeamModelTrainer {
     Path work = dataDir.models().resolve("training");
     RerankerTrainer trainer = new RerankerTrainer(config, work);
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
-    ModelStore store = new ModelStore(dataDir.models());
-    String version = store.write(trained);
     FusionFit fit = FusionFit.fit(knowledge.retriever(), new Scorer(trained.model()), fusion);
-    fit.save(store.directory(version));
+    // The fusion model is written with the version, so that its manifest covers it too.
+    ModelStore store = new ModelStore(dataDir.models());
+    String version = store.write(trained, fit::save);
     store.activate(version);
     return new TrainingReport(version, trained.metrics(), fit.summary());
   }
