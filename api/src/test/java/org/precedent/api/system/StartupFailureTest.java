@@ -15,6 +15,8 @@ import java.util.Arrays;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 import org.precedent.api.testing.ChildJvm;
 import org.precedent.api.testing.RunningService;
 import org.precedent.api.testing.TrainedData;
@@ -76,11 +78,12 @@ class StartupFailureTest {
         && message.contains("\\uxxxx"), message);
   }
 
-  @Test
-  void aTruncatedFusionModelNamesItself() throws Exception {
-    Path fusion = truncate(data.resolve("models/v-0001/fusion.json"));
+  @ParameterizedTest
+  @ValueSource(strings = {"fusion.json", "model.zip"})
+  void aTruncatedModelFileNamesItself(String name) throws Exception {
+    Path file = truncate(data.resolve("models/v-0001").resolve(name));
     String message = startFails();
-    assertTrue(message.contains(fusion.toString()) && message.contains("truncated"), message);
+    assertTrue(message.contains(file.toString()) && message.contains("truncated"), message);
   }
 
   @Test
@@ -91,15 +94,8 @@ class StartupFailureTest {
     assertNotEquals(before, edited);
     Files.writeString(fusion, edited);
     String message = startFails();
-    assertTrue(message.contains(fusion.toString()) && message.contains("changed after"),
-        message);
-  }
-
-  @Test
-  void aTruncatedWeightsFileNamesItself() throws Exception {
-    Path weights = truncate(data.resolve("models/v-0001/model.zip"));
-    String message = startFails();
-    assertTrue(message.contains(weights.toString()) && message.contains("truncated"), message);
+    assertTrue(message.contains(fusion.toString()) && message.contains("changed after")
+        && message.contains("in force") && message.contains("precedent train"), message);
   }
 
   @Test
