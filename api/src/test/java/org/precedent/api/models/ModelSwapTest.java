@@ -4,8 +4,10 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
 import java.util.Set;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.CopyOnWriteArrayList;
@@ -21,6 +23,11 @@ import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.TrainedData;
+import org.precedent.engine.learn.TeamModelTrainer;
+import org.precedent.engine.rerank.RerankerConfig;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
 
 /** Switching model versions: audited, persisted, and invisible to requests in flight. */
 class ModelSwapTest {
@@ -167,5 +174,24 @@ class ModelSwapTest {
     assertEquals(before, active());
     assertEquals(audited,
         http.get("/api/v1/models", Caller.MANAGER).json().get("activations").size());
+  }
+
+  @Test
+  void aVersionFromAnEarlierReleaseIsNotTakenAsAlreadyTrained() throws Exception {
+    Path data = TrainedData.copy();
+    try {
+      var dir = new DataDir(data);
+      var trainer = new TeamModelTrainer(dir,
+          RerankerConfig.defaults());
+      try (var knowledge = Knowledge.open(dir).orElseThrow()) {
+        assertEquals(Optional.of("v-0001"), trainer.currentVersion(knowledge));
+        TestCopies.earlierReleaseVersion(data, "v-0009");
+        TrainedData.delete(data.resolve("models/v-0001"));
+        Files.move(data.resolve("models/v-0009"), data.resolve("models/v-0001"));
+        assertEquals(Optional.empty(), trainer.currentVersion(knowledge));
+      }
+    } finally {
+      TrainedData.delete(data);
+    }
   }
 }
