@@ -24,7 +24,7 @@ public final class ServiceStartException extends RuntimeException {
     for (Throwable t = failure; t != null; t = t.getCause()) {
       if (t instanceof SQLException sql) {
         // The database's own message names the file (H2) or the server it could not reach.
-        return new ServiceStartException("the service database cannot be opened: "
+        return new ServiceStartException("the service database cannot be used: "
             + firstLine(sql), failure);
       }
     }

@@ -50,7 +50,7 @@ public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Dou
       return JSON.readValue(file.toFile(), FusionModel.class);
     } catch (IOException | IllegalArgumentException e) {
       throw new ModelLoadException(file + ": unreadable fusion model: "
-          + e.getMessage().split("\n")[0], e);
+          + String.valueOf(e.getMessage()).split("\n")[0], e);
     }
   }
 }
