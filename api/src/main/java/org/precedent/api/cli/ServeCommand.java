@@ -6,6 +6,7 @@ import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
 import org.precedent.api.system.ModelHolder;
 import org.precedent.api.system.PrecedentServer;
+import org.precedent.api.system.ServiceStartException;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.knowledge.store.DataDir;
 import org.springframework.context.ConfigurableApplicationContext;
@@ -63,6 +64,9 @@ final class ServeCommand implements Callable<Integer> {
     ConfigurableApplicationContext context;
     try {
       context = PrecedentServer.start(data, port, settings);
+    } catch (ServiceStartException e) {
+      err.println("precedent serve: " + e.getMessage());
+      return PrecedentCommand.FAILED;
     } catch (RuntimeException e) {
       err.println("precedent serve: " + Messages.oneLine(rootCause(e)));
       return PrecedentCommand.FAILED;

@@ -1,11 +1,11 @@
 package org.precedent.api.models;
 
 import jakarta.validation.constraints.NotBlank;
-import jakarta.validation.constraints.Size;
-import org.precedent.api.system.Limits;
 
-/** @param reason why the model changes: kept in the audit record */
+/**
+ * @param reason why the model changes: kept in the audit record (its length is checked against the
+ *     audit column, by AuditColumns)
+ */
 record ActivationRequest(
     @NotBlank(message = "must say why the model changes (kept in the audit record)")
-    @Size(max = Limits.REASON_CHARS, message = "must be at most {max} characters")
     String reason) {}

@@ -8,6 +8,7 @@ import java.time.Instant;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.ModelHolder;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
@@ -27,10 +28,12 @@ import org.springframework.web.server.ResponseStatusException;
 class ModelsController {
   private final ModelHolder models;
   private final JdbcTemplate db;
+  private final AuditColumns audit;
 
-  ModelsController(ModelHolder models, JdbcTemplate db) {
+  ModelsController(ModelHolder models, JdbcTemplate db, AuditColumns audit) {
     this.models = models;
     this.db = db;
+    this.audit = audit;
   }
 
   @GetMapping("/api/v1/models")
@@ -49,6 +52,7 @@ class ModelsController {
       consumes = MediaType.APPLICATION_JSON_VALUE)
   Map<String, Object> activate(@PathVariable("version") String version,
       @Valid @RequestBody ActivationRequest request, Principal who) throws IOException {
+    checkReason(request);
     if (!models.versions().contains(version)) {
       throw new ResponseStatusException(HttpStatus.NOT_FOUND, "no model version '" + version
           + "'; versions: " + String.join(", ", models.versions()));
@@ -60,6 +64,7 @@ class ModelsController {
   @PostMapping(path = "/api/v1/models/rollback", consumes = MediaType.APPLICATION_JSON_VALUE)
   Map<String, Object> rollback(@Valid @RequestBody ActivationRequest request, Principal who)
       throws IOException {
+    checkReason(request);
     String now = models.version();
     List<String> last = db.query("SELECT old_version FROM model_activation WHERE new_version = ? "
         + "ORDER BY id DESC FETCH FIRST 1 ROWS ONLY", (rs, n) -> rs.getString(1), now);
@@ -74,6 +79,10 @@ class ModelsController {
           "no earlier model version than " + now + " to go back to");
     }
     return switchTo(target, request.reason(), who.getName());
+  }
+
+  private void checkReason(ActivationRequest request) {
+    audit.check("reason", request.reason().strip(), "model_activation", "reason");
   }
 
   private Map<String, Object> switchTo(String version, String reason, String who)

@@ -6,6 +6,7 @@ import java.util.Optional;
 import java.util.concurrent.atomic.AtomicReference;
 import org.precedent.engine.decide.ActiveModel;
 import org.precedent.engine.decide.Thresholds;
+import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.knowledge.store.DataDir;
 
@@ -23,7 +24,16 @@ public final class ModelHolder implements AutoCloseable {
 
   public ModelHolder(DataDir dataDir) throws IOException {
     this.dataDir = dataDir;
-    ActiveModel model = ActiveModel.open(dataDir);
+    ActiveModel model;
+    try {
+      model = ActiveModel.open(dataDir);
+    } catch (ModelLoadException e) {
+      // Refused rather than served in part: a damaged or edited version decides nothing.
+      throw new ModelLoadException("the model version in force ("
+          + store().activeVersion().orElse("none") + ", named in "
+          + dataDir.models().resolve(ModelStore.ACTIVE) + ") cannot be used: " + e.getMessage()
+          + ". Train a new version ('precedent train'), or name a sound one in that file", e);
+    }
     current.set(new Served(new LoadedModel(model), model.advisor()));
     thresholdsInForce.set(model.thresholds());
   }

@@ -25,6 +25,7 @@ public class PrecedentServer {
    *
    * @param port  the port, 0 for any free one
    * @param extra further settings as {@code --name=value} arguments
+   * @throws ServiceStartException saying which file or part is at fault and what is wrong
    */
   public static ConfigurableApplicationContext start(Path data, int port, List<String> extra)
       throws IOException {
@@ -35,7 +36,12 @@ public class PrecedentServer {
     args.add("--server.port=" + port);
     args.addAll(extra);
     SpringApplication app = new SpringApplication(PrecedentServer.class);
-    return app.run(args.toArray(String[]::new));
+    app.addListeners(new DatabaseFileCheck());
+    try {
+      return app.run(args.toArray(String[]::new));
+    } catch (RuntimeException e) {
+      throw ServiceStartException.of(e);
+    }
   }
 
   /** The port the running service listens on. */

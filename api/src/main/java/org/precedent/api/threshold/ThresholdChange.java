@@ -4,9 +4,7 @@ import jakarta.validation.constraints.DecimalMax;
 import jakarta.validation.constraints.DecimalMin;
 import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.NotNull;
-import jakarta.validation.constraints.Size;
 import java.util.Map;
-import org.precedent.api.system.Limits;
 
 /**
  * A manager's change of the thresholds.
@@ -21,6 +19,6 @@ record ThresholdChange(
     @DecimalMax(value = "1", message = "must be at most {value}")
     Double global,
     Map<String, Double> perCategory,
+    // Its length is checked against the audit column (AuditColumns).
     @NotBlank(message = "must say why the threshold changes (kept in the audit record)")
-    @Size(max = Limits.REASON_CHARS, message = "must be at most {max} characters")
     String reason) {}

@@ -12,6 +12,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
+import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.FieldProblem;
 import org.precedent.api.system.Limits;
 import org.precedent.api.system.ModelHolder;
@@ -32,10 +33,12 @@ import org.springframework.web.server.ResponseStatusException;
 class ThresholdController {
   private final ModelHolder models;
   private final JdbcTemplate db;
+  private final AuditColumns audit;
 
-  ThresholdController(ModelHolder models, JdbcTemplate db) {
+  ThresholdController(ModelHolder models, JdbcTemplate db, AuditColumns audit) {
     this.models = models;
     this.db = db;
+    this.audit = audit;
   }
 
   @GetMapping("/api/v1/threshold")
@@ -58,20 +61,33 @@ class ThresholdController {
     Map<String, Double> perCategory = change.perCategory() == null ? Map.of()
         : change.perCategory();
     perCategory.forEach((category, value) -> {
-      if (category.isBlank() || category.length() > Limits.NAME_CHARS
-          || !category.matches("[^=:#!\\s]+")) {
-        throw new FieldProblem("perCategory", "'" + category + "' is not a usable category name");
+      if (category.length() > Limits.NAME_CHARS) {
+        throw new FieldProblem("perCategory", "category '" + category.substring(0, 40)
+            + "...' is longer than " + Limits.NAME_CHARS + " characters");
       }
+      Thresholds.categoryProblem(category).ifPresent(problem -> {
+        throw new FieldProblem("perCategory", "category '" + category + "' " + problem);
+      });
       if (value == null || !(value >= 0 && value <= 1)) {
         throw new FieldProblem("perCategory." + category, "must be between 0 and 1");
       }
     });
+    String reason = change.reason().strip();
+    audit.check("reason", reason, "threshold_change", "reason");
     Thresholds next = new Thresholds(change.global(), perCategory);
+    int width = audit.width("threshold_change", "new_value");
+    if (describe(next).length() > width) {
+      throw new FieldProblem("perCategory", "these thresholds take " + describe(next).length()
+          + " characters in the audit record, which keeps at most " + width
+          + ": set fewer categories, or shorter names");
+    }
     Instant at = Instant.now();
     Thresholds old = models.changeThresholds(next, (before, after) ->
         db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, new_value, "
             + "reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
-            describe(before), describe(after), change.reason().strip()));
+            // Set outside the service (evaluate --apply, by hand), the old ones may be longer.
+            abbreviate(describe(before), audit.width("threshold_change", "old_value")),
+            describe(after), reason));
     Map<String, Object> out = new LinkedHashMap<>();
     out.put("changedBy", who.getName());
     out.put("changedAt", at.toString());
@@ -108,7 +124,20 @@ class ThresholdController {
   static String describe(Thresholds t) {
     StringBuilder s = new StringBuilder(String.format(Locale.ROOT, "global=%.4f", t.global()));
     new TreeMap<>(t.perCategory()).forEach((c, v) ->
-        s.append(String.format(Locale.ROOT, "; %s=%.4f", c, v)));
+        s.append(String.format(Locale.ROOT, "; %s=%.4f", quoted(c), v)));
     return s.toString();
+  }
+
+  /** A name that holds this record's own separators is quoted, so the record reads one way. */
+  private static String quoted(String category) {
+    if (category.indexOf(';') < 0 && category.indexOf('=') < 0 && category.indexOf('"') < 0) {
+      return category;
+    }
+    return '"' + category.replace("\\", "\\\\").replace("\"", "\\\"") + '"';
+  }
+
+  private static String abbreviate(String text, int width) {
+    String more = " ... (cut to fit the audit record)";
+    return text.length() <= width ? text : text.substring(0, width - more.length()) + more;
   }
 }

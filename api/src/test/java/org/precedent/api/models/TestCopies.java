@@ -3,6 +3,8 @@ package org.precedent.api.models;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
+import org.precedent.api.testing.Http;
 import org.precedent.api.testing.TrainedData;
 
 /** Model versions made for tests from the trained one. */
@@ -16,5 +18,35 @@ final class TestCopies {
     Path weights = dir.resolve("model.zip");
     byte[] bytes = Files.readAllBytes(weights);
     Files.write(weights, java.util.Arrays.copyOf(bytes, bytes.length / 2));
+  }
+
+  /**
+   * A copy of v-0001 whose fusion model was edited by hand so that every top candidate gets a
+   * confidence of 1.0 (each system's Platt map made flat at its top), still valid JSON.
+   */
+  static void overconfidentVersion(Path data, String name) throws IOException {
+    Path dir = data.resolve("models").resolve(name);
+    TrainedData.copyTree(data.resolve("models/v-0001"), dir);
+    Path fusion = dir.resolve("fusion.json");
+    var json = Http.JSON.readTree(fusion.toFile());
+    for (var system : json.get("systems")) {
+      var calibration = (com.fasterxml.jackson.databind.node.ObjectNode) system.get("calibration");
+      calibration.put("a", 0.0);
+      calibration.put("b", -50.0);
+    }
+    Http.JSON.writeValue(fusion.toFile(), json);
+  }
+
+  /**
+   * A copy of v-0001 as an earlier release left it: the manifest lists the reranker's files but
+   * not fusion.json, which was written after the manifest.
+   */
+  static void earlierReleaseVersion(Path data, String name) throws IOException {
+    Path dir = data.resolve("models").resolve(name);
+    TrainedData.copyTree(data.resolve("models/v-0001"), dir);
+    Path manifest = dir.resolve("manifest.properties");
+    List<String> kept = Files.readAllLines(manifest).stream()
+        .filter(line -> !line.startsWith("fusion.json")).toList();
+    Files.write(manifest, kept);
   }
 }

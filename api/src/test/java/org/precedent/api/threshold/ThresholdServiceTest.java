@@ -5,16 +5,26 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
 import java.util.Map;
+import java.util.TreeMap;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.MethodOrderer;
+import org.junit.jupiter.api.Order;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestMethodOrder;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.TrainedData;
+import org.precedent.engine.decide.ActiveModel;
+import org.precedent.knowledge.store.DataDir;
 
 /** Threshold changes: applied to the next decision, written to the data directory, audited. */
+@TestMethodOrder(MethodOrderer.OrderAnnotation.class)
 class ThresholdServiceTest {
   static RunningService service;
   static Http http;
@@ -31,6 +41,7 @@ class ThresholdServiceTest {
   }
 
   @Test
+  @Order(1) // first: it starts from the default threshold
   void aChangeIsAppliedWrittenAndAudited() throws Exception {
     assertEquals(0.95, http.get("/api/v1/threshold", Caller.MANAGER).json().get("global")
         .asDouble(), 1e-9);
@@ -48,7 +59,7 @@ class ThresholdServiceTest {
         "category", "billing"), Caller.AGENT).json();
     assertEquals(0.99, billing.get("threshold").asDouble(), 1e-9);
 
-    String file = Files.readString(service.data().resolve("thresholds.properties"));
+    String file = thresholdsFile();
     assertTrue(file.contains("global=0.7000") && file.contains("category.billing=0.9900"), file);
 
     JsonNode audit = http.get("/api/v1/threshold/changes", Caller.MANAGER).json().get(0);
@@ -84,5 +95,83 @@ class ThresholdServiceTest {
     Reply r = http.get("/api/v1/threshold/evaluation", Caller.MANAGER);
     assertEquals(404, r.status());
     assertTrue(r.json().get("detail").asText().contains("precedent evaluate"));
+  }
+
+  /** Category names a help desk may use that are awkward in a properties file. */
+  static final List<String> AWKWARD = List.of("green bins", "Água e esgoto", "請求書",
+      "rate=band", "billing: arrears", "#urgent", "!important", "C:\\shares\\billing", "a\\u12",
+      "trailing\\", "emoji 🚰 leak");
+
+  @Test
+  void awkwardCategoryNamesAreKeptExactlyAndSurviveARestart() throws Exception {
+    Map<String, Double> perCategory = new TreeMap<>();
+    for (int i = 0; i < AWKWARD.size(); i++) {
+      perCategory.put(AWKWARD.get(i), (50 + i) / 100.0);
+    }
+    Reply r = http.put("/api/v1/threshold", Map.of("global", 0.9, "perCategory", perCategory,
+        "reason", "categories as the help desk names them"), Caller.MANAGER);
+    assertEquals(200, r.status(), r.raw().body());
+    assertEquals(perCategory, perCategory(http));
+    assertEquals(perCategory, ActiveModel.readThresholds(new DataDir(service.data()))
+        .perCategory());
+    JsonNode d = http.post("/api/v1/decisions", Map.of("question", "bin not emptied",
+        "category", "a\\u12"), Caller.AGENT).json();
+    assertEquals(perCategory.get("a\\u12"), d.get("threshold").asDouble(), 1e-9);
+
+    Path copy = Files.createTempDirectory("precedent-restart-");
+    TrainedData.copyTree(service.data(), copy);
+    // A fresh service database: only the thresholds file is carried over.
+    TrainedData.delete(copy.resolve("service"));
+    try (RunningService again = RunningService.startOn(copy)) {
+      assertEquals(perCategory, perCategory(again.http()));
+    }
+  }
+
+  private static String thresholdsFile() throws java.io.IOException {
+    Path file = service.data().resolve("thresholds.properties");
+    return Files.exists(file) ? Files.readString(file) : "(none)";
+  }
+
+  private static Map<String, Double> perCategory(Http http) {
+    Map<String, Double> out = new TreeMap<>();
+    http.get("/api/v1/threshold", Caller.MANAGER).json().get("perCategory").fields()
+        .forEachRemaining(e -> out.put(e.getKey(), e.getValue().asDouble()));
+    return out;
+  }
+
+  @Test
+  void unusableCategoryNamesAreRefusedNamingTheField() throws Exception {
+    String file = thresholdsFile();
+    for (String bad : List.of(" bins", "line\nbreak", "zero\u200bwidth", "x".repeat(201))) {
+      Reply r = http.put("/api/v1/threshold", Map.of("global", 0.5, "reason", "x",
+          "perCategory", Map.of(bad, 0.5)), Caller.MANAGER);
+      assertEquals(400, r.status(), r.raw().body());
+      assertEquals("perCategory", r.json().get("errors").get(0).get("field").asText());
+    }
+    assertEquals(file, thresholdsFile());
+  }
+
+  @Test
+  void moreCategoriesThanTheAuditRecordHoldsIs400AndChangesNothing() throws Exception {
+    String file = thresholdsFile();
+    int audited = http.get("/api/v1/threshold/changes", Caller.MANAGER).json().size();
+    // threshold_change.new_value is VARCHAR(4000) in schema.sql: 30 names of 150 characters
+    // do not fit.
+    Map<String, Double> perCategory = new TreeMap<>();
+    for (int i = 0; i < 30; i++) {
+      perCategory.put(String.format("%03d", i) + "c".repeat(147), 0.9);
+    }
+    Reply r = http.put("/api/v1/threshold", Map.of("global", 0.5, "reason", "many",
+        "perCategory", perCategory), Caller.MANAGER);
+    assertEquals(400, r.status(), r.raw().body());
+    assertEquals("perCategory", r.json().get("errors").get(0).get("field").asText());
+    assertTrue(r.json().get("detail").asText().contains("4000"), r.raw().body());
+    Reply longReason = http.put("/api/v1/threshold", Map.of("global", 0.5,
+        "reason", "because ".repeat(250) + "x"), Caller.MANAGER);
+    assertEquals(400, longReason.status(), longReason.raw().body());
+    assertEquals("reason", longReason.json().get("errors").get(0).get("field").asText());
+    assertTrue(longReason.json().get("detail").asText().contains("2000"), longReason.raw().body());
+    assertEquals(file, thresholdsFile());
+    assertEquals(audited, http.get("/api/v1/threshold/changes", Caller.MANAGER).json().size());
   }
 }

@@ -2,19 +2,12 @@ package org.precedent.engine.decide;
 
 import java.io.Closeable;
 import java.io.IOException;
-import java.io.Reader;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.util.HashMap;
-import java.util.Locale;
-import java.util.Map;
-import java.util.Properties;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.engine.safety.SafetyPolicy;
-import org.precedent.knowledge.store.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
@@ -94,36 +87,14 @@ public final class ActiveModel implements Closeable {
     return thresholds;
   }
 
-  static Thresholds readThresholds(DataDir dir) throws IOException {
-    Path file = dir.root().resolve(THRESHOLDS);
-    Properties p = new Properties();
-    try (Reader in = Files.newBufferedReader(file)) {
-      p.load(in);
-    } catch (NoSuchFileException e) {
-      return Thresholds.global(DEFAULT_THRESHOLD);
-    }
-    try {
-      double global = Double.parseDouble(p.getProperty("global", "" + DEFAULT_THRESHOLD));
-      Map<String, Double> perCategory = new HashMap<>();
-      for (String key : p.stringPropertyNames()) {
-        if (key.startsWith("category.")) {
-          perCategory.put(key.substring("category.".length()),
-              Double.parseDouble(p.getProperty(key)));
-        }
-      }
-      return new Thresholds(global, perCategory);
-    } catch (IllegalArgumentException e) {
-      throw new IOException(file + ": " + e.getMessage(), e);
-    }
+  /** The thresholds in force in {@code dir}; an IOException names the file and line when bad. */
+  public static Thresholds readThresholds(DataDir dir) throws IOException {
+    return ThresholdsFile.read(dir.root().resolve(THRESHOLDS), DEFAULT_THRESHOLD);
   }
 
   /** Sets the thresholds in force for later runs (written atomically). */
   public static void writeThresholds(DataDir dir, Thresholds thresholds) throws IOException {
-    StringBuilder s = new StringBuilder("# Confidence needed for an automatic reply.\n");
-    s.append(String.format(Locale.ROOT, "global=%.4f%n", thresholds.global()));
-    thresholds.perCategory().forEach((c, v) ->
-        s.append(String.format(Locale.ROOT, "category.%s=%.4f%n", c, v)));
-    AtomicFiles.writeString(dir.root().resolve(THRESHOLDS), s.toString());
+    ThresholdsFile.write(dir.root().resolve(THRESHOLDS), thresholds);
   }
 
   @Override

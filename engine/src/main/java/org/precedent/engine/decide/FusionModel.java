@@ -6,6 +6,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.knowledge.store.AtomicFiles;
 
 /**
@@ -42,12 +43,14 @@ public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Dou
   public static FusionModel load(Path versionDir) throws IOException {
     Path file = versionDir.resolve(FILE);
     if (!Files.exists(file)) {
-      throw new IOException(file + ": missing; this model version was not finished (train again)");
+      throw new ModelLoadException(file + ": missing; this model version was not finished "
+          + "(train again)");
     }
     try {
       return JSON.readValue(file.toFile(), FusionModel.class);
     } catch (IOException | IllegalArgumentException e) {
-      throw new IOException(file + ": unreadable fusion model: " + e.getMessage(), e);
+      throw new ModelLoadException(file + ": unreadable fusion model: "
+          + String.valueOf(e.getMessage()).split("\n")[0], e);
     }
   }
 }

@@ -53,13 +53,20 @@ public final class TeamModelTrainer {
 
   /**
    * The active model version, if it was trained on exactly the reranker pairs the knowledge gives
-   * now and was finished (fusion fitted): then training again would change nothing.
+   * now, was finished (fusion fitted) and every file of it checks out: then training again would
+   * change nothing.
    */
   public java.util.Optional<String> currentVersion(Knowledge knowledge) throws IOException {
     ModelStore store = new ModelStore(dataDir.models());
     java.util.Optional<String> active = store.activeVersion();
     if (active.isEmpty()
         || !java.nio.file.Files.exists(store.directory(active.get()).resolve("fusion.json"))) {
+      return java.util.Optional.empty();
+    }
+    try {
+      store.verify(active.get());
+    } catch (org.precedent.engine.rerank.ModelLoadException e) {
+      // Damaged, edited, or made by an earlier release: training again is the remedy.
       return java.util.Optional.empty();
     }
     String fingerprint = org.precedent.engine.rerank.train.DataFingerprint.of(
@@ -85,10 +92,10 @@ public final class TeamModelTrainer {
     Path work = dataDir.models().resolve("training");
     RerankerTrainer trainer = new RerankerTrainer(config, work);
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
-    ModelStore store = new ModelStore(dataDir.models());
-    String version = store.write(trained);
     FusionFit fit = FusionFit.fit(knowledge.retriever(), new Scorer(trained.model()), fusion);
-    fit.save(store.directory(version));
+    // The fusion model is written with the version, so that its manifest covers it too.
+    ModelStore store = new ModelStore(dataDir.models());
+    String version = store.write(trained, fit::save);
     store.activate(version);
     return new TrainingReport(version, trained.metrics(), fit.summary());
   }

@@ -34,8 +34,10 @@ import org.precedent.engine.rerank.tokens.Vocabulary;
  * <p>A version is written whole into a hidden temporary directory and renamed into place, so a crash
  * never leaves a half-written version; {@value #ACTIVE} is switched by atomic rename too. Each version
  * holds the weights ({@value #WEIGHTS}), the vocabulary, the settings with the anti-LM weight, the
- * training metrics and data fingerprint, and a manifest of SHA-256 sums that loading checks first, so a
- * truncated or damaged file is reported as such rather than as a confusing failure deep in DL4J.
+ * training metrics and data fingerprint, whatever else the caller writes with it (the fusion model),
+ * and a manifest of the SHA-256 of every one of those files. Loading and activating check every file
+ * first, so a truncated, damaged or hand-edited file is refused by name rather than failing deep in
+ * DL4J or, worse, being used.
  */
 public final class ModelStore {
 
@@ -62,6 +64,20 @@ public final class ModelStore {
 
   /** Saves a trained reranker as the next version without activating it. */
   public String write(TrainedReranker trained) throws IOException {
+    return write(trained, dir -> { });
+  }
+
+  /** More files of a version, written into its directory before the manifest is made. */
+  @FunctionalInterface
+  public interface VersionFiles {
+    void writeInto(Path versionDir) throws IOException;
+  }
+
+  /**
+   * Saves a trained reranker and {@code more} files as the next version, without activating it;
+   * the manifest covers them all.
+   */
+  public String write(TrainedReranker trained, VersionFiles more) throws IOException {
     Files.createDirectories(root);
     Path staging = Files.createTempDirectory(root, ".staging-");
     try {
@@ -73,6 +89,8 @@ public final class ModelStore {
         // not a POSIX file system: keep its default
       }
       writeFiles(staging, trained);
+      more.writeInto(staging);
+      writeManifest(staging);
       while (true) {
         String version = nextVersion();
         try {
@@ -87,10 +105,9 @@ public final class ModelStore {
     }
   }
 
+  /** Makes {@code version} the active one, once every file of it is checked. */
   public void activate(String version) throws IOException {
-    if (!Files.isDirectory(root.resolve(checkName(version)))) {
-      throw new ModelLoadException("no reranker version " + version + " under " + root);
-    }
+    verify(version);
     AtomicFiles.writeString(root.resolve(ACTIVE), version + "\n");
   }
 
@@ -136,27 +153,79 @@ public final class ModelStore {
   }
 
   /**
-   * Loads a version, checking every file against the manifest first.
+   * Loads a version, checking every file against the manifest first ({@link #verify}).
    *
    * @throws ModelLoadException naming the file when one is missing, truncated or damaged, or when the
    *     vocabulary does not fit the network
    */
   public RerankerModel load(String version) throws IOException {
+    verify(version);
+    return read(directory(version));
+  }
+
+  /**
+   * Checks that every file of a version is in its manifest and has the SHA-256 recorded there, and
+   * that every file the manifest lists is there.
+   *
+   * <p>A version made by an earlier release has a manifest without {@code fusion.json}. It is
+   * refused like any other file the manifest does not cover: nothing tells such a file from one
+   * edited or put there by hand, and the fusion model sets every confidence, so using it unchecked
+   * could turn hand-offs into automatic replies. Training again makes a fully covered version.
+   *
+   * @throws ModelLoadException naming the first file that fails
+   */
+  public void verify(String version) throws IOException {
     Path dir = directory(version);
     if (!Files.isDirectory(dir)) {
       throw new ModelLoadException("no reranker version " + version + " under " + root);
     }
-    Properties manifest = properties(dir.resolve(MANIFEST));
-    for (String file : List.of(WEIGHTS, VOCABULARY, CONFIG)) {
-      Path path = dir.resolve(file);
-      if (!Files.isRegularFile(path)) {
-        throw new ModelLoadException("reranker file " + path + " is missing");
-      }
-      if (!AtomicFiles.sha256(path).equals(manifest.getProperty(file))) {
-        throw new ModelLoadException("reranker file " + path + " is corrupt or truncated (checksum mismatch)");
+    Path manifestFile = dir.resolve(MANIFEST);
+    Properties manifest;
+    try {
+      manifest = properties(manifestFile);
+    } catch (IllegalArgumentException e) {
+      throw new ModelLoadException("model file " + manifestFile + " is damaged (" + e.getMessage()
+          + "); train again ('precedent train')", e);
+    }
+    for (String file : filesOf(dir)) {
+      if (manifest.getProperty(file) == null) {
+        throw new ModelLoadException("model file " + dir.resolve(file) + " is not in the checksum "
+            + "manifest of " + version + ": the version was made by an earlier release, or the file "
+            + "was added afterwards; it is not used unchecked. Train a new version with "
+            + "'precedent train' (or remove the file if it does not belong there)");
       }
     }
-    return read(dir);
+    for (String file : new java.util.TreeSet<>(manifest.stringPropertyNames())) {
+      Path path = dir.resolve(file).normalize();
+      if (!path.startsWith(dir)) {
+        throw new ModelLoadException("model file " + manifestFile + " names a file outside the "
+            + "version: '" + file + "'");
+      }
+      if (!Files.isRegularFile(path)) {
+        throw new ModelLoadException("model file " + path + " is missing");
+      }
+      if (!AtomicFiles.sha256(path).equals(manifest.getProperty(file).strip())) {
+        throw new ModelLoadException("model file " + path + " is corrupt or truncated, or was "
+            + "changed after the version was made (its SHA-256 differs from " + MANIFEST + ")");
+      }
+    }
+  }
+
+  /** Every regular file under a version's directory but the manifest, as relative paths with '/'. */
+  private static List<String> filesOf(Path dir) throws IOException {
+    List<String> out = new ArrayList<>();
+    try (var paths = Files.walk(dir)) {
+      for (Path p : paths.toList()) {
+        if (!Files.isDirectory(p)) {
+          String name = dir.relativize(p).toString().replace('\\', '/');
+          if (!name.equals(MANIFEST)) {
+            out.add(name);
+          }
+        }
+      }
+    }
+    out.sort(null);
+    return out;
   }
 
   /** Reads a version's files without the manifest check (for tests and diagnostics of damaged files). */
@@ -192,13 +261,17 @@ public final class ModelStore {
     metrics.put("metrics", trained.metrics());
     String json = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(metrics);
     Files.writeString(dir.resolve(METRICS), json, StandardCharsets.UTF_8);
+  }
+
+  /** The manifest: the SHA-256 of every file written into the version, each forced to disk. */
+  private static void writeManifest(Path dir) throws IOException {
     Properties manifest = new Properties();
-    for (String file : List.of(WEIGHTS, VOCABULARY, CONFIG, METRICS)) {
+    for (String file : filesOf(dir)) {
       AtomicFiles.sync(dir.resolve(file));
       manifest.setProperty(file, AtomicFiles.sha256(dir.resolve(file)));
     }
     StringWriter out = new StringWriter();
-    manifest.store(out, "SHA-256 of each file of this reranker version");
+    manifest.store(out, "SHA-256 of every file of this model version");
     AtomicFiles.writeString(dir.resolve(MANIFEST), out.toString());
   }
 

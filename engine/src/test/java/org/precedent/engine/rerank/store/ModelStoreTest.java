@@ -97,4 +97,61 @@ class ModelStoreTest {
     ModelLoadException e = assertThrows(ModelLoadException.class, () -> new ModelStore(root).loadActive());
     assertTrue(e.getMessage().contains("no active reranker"), e.getMessage());
   }
+
+  @Test
+  void aChangedFileOfAnyKindIsRefusedNamingIt(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    String version = store.save(trained);
+    Path metrics = root.resolve(version).resolve(ModelStore.METRICS);
+    Files.writeString(metrics, Files.readString(metrics).replace("\"epochs\"", "\"epochs\" "));
+    ModelLoadException e = assertThrows(ModelLoadException.class, () -> store.load(version));
+    assertTrue(e.getMessage().contains(metrics.toString()), e.getMessage());
+    assertTrue(e.getMessage().contains("corrupt or truncated"), e.getMessage());
+  }
+
+  @Test
+  void aFileTheManifestDoesNotCoverIsRefused(@TempDir Path root) throws Exception {
+    // As a version made before every file was in the manifest: fusion.json added afterwards.
+    ModelStore store = new ModelStore(root);
+    String version = store.save(trained);
+    Path extra = root.resolve(version).resolve("fusion.json");
+    Files.writeString(extra, "{}");
+    ModelLoadException e = assertThrows(ModelLoadException.class, () -> store.load(version));
+    assertTrue(e.getMessage().contains(extra.toString()), e.getMessage());
+    assertTrue(e.getMessage().contains("not in the checksum manifest"), e.getMessage());
+    assertTrue(e.getMessage().contains("precedent train"), e.getMessage());
+  }
+
+  @Test
+  void filesWrittenWithTheVersionAreInItsManifestAndChecked(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    String version = store.write(trained, dir -> Files.writeString(dir.resolve("fusion.json"),
+        "{\"a\": 1}"));
+    Path dir = root.resolve(version);
+    java.util.Properties manifest = new java.util.Properties();
+    try (var in = Files.newBufferedReader(dir.resolve(ModelStore.MANIFEST))) {
+      manifest.load(in);
+    }
+    try (var files = Files.list(dir)) {
+      assertEquals(files.map(p -> p.getFileName().toString())
+          .filter(n -> !n.equals(ModelStore.MANIFEST)).collect(java.util.stream.Collectors.toSet()),
+          manifest.stringPropertyNames());
+    }
+    store.verify(version);
+    Files.writeString(dir.resolve("fusion.json"), "{\"a\": 2}");
+    ModelLoadException e = assertThrows(ModelLoadException.class, () -> store.verify(version));
+    assertTrue(e.getMessage().contains("fusion.json"), e.getMessage());
+  }
+
+  @Test
+  void aDamagedVersionIsNeverMadeActive(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    store.save(trained);
+    String second = store.write(trained);
+    store.activate("v-0001");
+    Path config = root.resolve(second).resolve(ModelStore.CONFIG);
+    Files.writeString(config, Files.readString(config) + "antiLmLambda=0.9\n");
+    assertThrows(ModelLoadException.class, () -> store.activate(second));
+    assertEquals("v-0001", store.activeVersion().orElseThrow());
+  }
 }
