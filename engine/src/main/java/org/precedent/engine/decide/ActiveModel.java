@@ -7,9 +7,9 @@ import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.HashMap;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Properties;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.store.ModelStore;
@@ -120,9 +120,11 @@ public final class ActiveModel implements Closeable {
   /** Sets the thresholds in force for later runs (written atomically). */
   public static void writeThresholds(DataDir dir, Thresholds thresholds) throws IOException {
     StringBuilder s = new StringBuilder("# Confidence needed for an automatic reply.\n");
-    s.append(String.format(Locale.ROOT, "global=%.4f%n", thresholds.global()));
+    // Every digit is kept: a threshold written rounded would be another rule than the one chosen.
+    s.append("global=").append(ThresholdDecimals.of(thresholds.global(), 4)).append('\n');
     thresholds.perCategory().forEach((c, v) ->
-        s.append(String.format(Locale.ROOT, "category.%s=%.4f%n", c, v)));
+        s.append("category.").append(c).append('=').append(ThresholdDecimals.of(v, 4))
+            .append('\n'));
     AtomicFiles.writeString(dir.root().resolve(THRESHOLDS), s.toString());
   }
 

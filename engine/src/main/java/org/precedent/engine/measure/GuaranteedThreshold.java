@@ -22,6 +22,8 @@ public final class GuaranteedThreshold {
   public static final double DEFAULT_TARGET_PRECISION = 0.95;
   /** Default allowed probability that the guarantee fails. */
   public static final double DEFAULT_DELTA = 0.05;
+  /** How far below the certified confidence the threshold's shorter name may lie, at most. */
+  static final double NAMED_WITHIN = 0.001;
 
   private GuaranteedThreshold() {}
 
@@ -90,7 +92,7 @@ public final class GuaranteedThreshold {
 
     if (bestStart >= 0) {
       int accepted = n - bestStart;
-      return new ThresholdRecommendation(ThresholdRecommendation.Status.OK, confidence[bestStart],
+      return new ThresholdRecommendation(ThresholdRecommendation.Status.OK, named(confidence, bestStart),
           (double) accepted / n, (double) rightFrom[bestStart] / accepted, bestBound, n, tried,
           targetPrecision, correctedDelta, minimal);
     }
@@ -99,6 +101,21 @@ public final class GuaranteedThreshold {
         : ThresholdRecommendation.Status.NOT_CERTIFIED;
     return new ThresholdRecommendation(status, Double.POSITIVE_INFINITY, 0.0, Double.NaN, Double.NaN,
         n, tried, targetPrecision, correctedDelta, minimal);
+  }
+
+  /**
+   * The certified threshold as a short decimal: the shortest one above the next lower confidence (and
+   * at most {@value #NAMED_WITHIN} below the certified one). It replies to exactly the same held-out
+   * answers, so every figure and the bound stay as measured, and a manager reads 0.996 rather than
+   * 0.99604178.
+   */
+  private static double named(double[] ascending, int start) {
+    double certified = ascending[start];
+    double below = certified - NAMED_WITHIN;
+    if (start > 0) {
+      below = Math.max(below, ascending[start - 1]);
+    }
+    return ThresholdDecimals.shortestAbove(below, certified);
   }
 
   /** ceil(log2 n), at least 1: the number of binary-search steps, and the Bonferroni divisor. */
