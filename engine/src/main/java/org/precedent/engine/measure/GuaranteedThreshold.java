@@ -22,8 +22,6 @@ public final class GuaranteedThreshold {
   public static final double DEFAULT_TARGET_PRECISION = 0.95;
   /** Default allowed probability that the guarantee fails. */
   public static final double DEFAULT_DELTA = 0.05;
-  /** How far below the certified confidence the threshold's shorter name may lie, at most. */
-  static final double NAMED_WITHIN = 0.001;
 
   private GuaranteedThreshold() {}
 
@@ -104,18 +102,12 @@ public final class GuaranteedThreshold {
   }
 
   /**
-   * The certified threshold as a short decimal: the shortest one above the next lower confidence (and
-   * at most {@value #NAMED_WITHIN} below the certified one). It replies to exactly the same held-out
-   * answers, so every figure and the bound stay as measured, and a manager reads 0.996 rather than
-   * 0.99604178.
+   * The certified threshold by its shortest name ({@link ThresholdDecimals#naming}): it replies to
+   * the same held-out answers, so the bound computed for the probed confidence is the bound for it.
    */
   private static double named(double[] ascending, int start) {
-    double certified = ascending[start];
-    double below = certified - NAMED_WITHIN;
-    if (start > 0) {
-      below = Math.max(below, ascending[start - 1]);
-    }
-    return ThresholdDecimals.shortestAbove(below, certified);
+    return ThresholdDecimals.naming(ascending[start],
+        start > 0 ? ascending[start - 1] : Double.NEGATIVE_INFINITY);
   }
 
   /** ceil(log2 n), at least 1: the number of binary-search steps, and the Bonferroni divisor. */

@@ -17,6 +17,8 @@ import java.math.RoundingMode;
 public final class ThresholdDecimals {
   /** Decimals shown at least, so that 0.9 and 0.95 line up as 0.90 and 0.95. */
   public static final int SHOWN = 2;
+  /** How far below an observed confidence the threshold that names it may lie, at most. */
+  public static final double NAMED_WITHIN = 0.001;
 
   private ThresholdDecimals() {}
 
@@ -69,6 +71,18 @@ public final class ThresholdDecimals {
       }
     }
     return high;
+  }
+
+  /**
+   * The threshold that names "reply at this observed confidence and above": the shortest decimal
+   * above the next lower observed confidence, and at most {@value #NAMED_WITHIN} below this one.
+   * It replies to exactly the same observed answers, so every figure measured at the confidence
+   * holds for it, and a reader sees 0.996 rather than 0.99604178.
+   *
+   * @param nextLower the next lower observed confidence, or negative infinity when there is none
+   */
+  public static double naming(double confidence, double nextLower) {
+    return shortestAbove(Math.max(nextLower, confidence - NAMED_WITHIN), confidence);
   }
 
   private static BigDecimal exact(double value, int minDecimals) {
