@@ -80,9 +80,9 @@ const Precedent = (() => {
     const r = await send('GET', '/api/v1/me', undefined, c);
     if (r.status === 200 && r.json) return { header: c.header, value: c.value, name: r.json.name, role: r.json.role };
     if (r.status === 401) {
-      needSignIn((c.header === 'X-Precedent-Key' ? 'Not signed in: that API key is not known to this service.'
-        : 'Not signed in: that user name and password do not match.')
-        + ((r.json && r.json.detail) ? ' (' + r.json.detail + ')' : ''));
+      needSignIn(c.header === 'X-Precedent-Key'
+        ? 'Not signed in: that API key is not known to this service. Check it and try again.'
+        : 'Not signed in: that user name and password do not match. Check them and try again.');
     } else {
       needSignIn('Not signed in: ' + problem(r));
     }
