@@ -203,11 +203,7 @@ class PagesBrowserTest {
 
   @Test
   void aWrongKeyIsRefusedAtSignInWithTheServicesReason() {
-    browser.script("sessionStorage.clear()");
-    browser.go("/answers");
-    browser.visible("#api-key");
-    browser.type("#api-key", "not-a-key");
-    browser.find("#sign-in").click();
+    signInWithKey("/answers", "not-a-key");
     browser.showing("#sign-in-status", "that API key is not known");
     assertTrue(browser.find("#sign-in-form").isDisplayed());
     assertFalse(browser.find("#question").isDisplayed(), "a wrong key opened the page");
@@ -224,11 +220,7 @@ class PagesBrowserTest {
 
   @Test
   void anAgentOnTheThresholdPageIsToldInPlainWordsThatItIsForManagers() {
-    browser.script("sessionStorage.clear()");
-    browser.go("/manage");
-    browser.visible("#api-key");
-    browser.type("#api-key", "demo-agent-key");
-    browser.find("#sign-in").click();
+    signInWithKey("/manage", "demo-agent-key");
     WebElement notice = browser.visible("#other-role");
     assertTrue(notice.getText().contains("This page is for managers"), notice.getText());
     assertTrue(notice.getText().contains("agent role"), notice.getText());
@@ -259,12 +251,16 @@ class PagesBrowserTest {
   }
 
   private void signInAsManager() {
-    browser.script("sessionStorage.clear()");
-    browser.go("/manage");
-    browser.visible("#api-key");
-    browser.type("#api-key", "demo-manager-key");
-    browser.find("#sign-in").click();
+    signInWithKey("/manage", "demo-manager-key");
     browser.visible("#curve");
+  }
+
+  private void signInWithKey(String page, String key) {
+    browser.script("sessionStorage.clear()");
+    browser.go(page);
+    browser.visible("#api-key");
+    browser.type("#api-key", key);
+    browser.find("#sign-in").click();
   }
 
   private void assertFiguresOf(JsonNode row) {
@@ -410,11 +406,7 @@ class PagesBrowserTest {
     Path aside = latest.resolveSibling("latest.json.aside");
     Files.move(latest, aside);
     try {
-      browser.script("sessionStorage.clear()");
-      browser.go("/manage");
-      browser.visible("#api-key");
-      browser.type("#api-key", "demo-manager-key");
-      browser.find("#sign-in").click();
+      signInWithKey("/manage", "demo-manager-key");
       WebElement notice = browser.visible("#no-evaluation");
       assertTrue(notice.getText().contains("precedent evaluate FILE --apply"), notice.getText());
       assertFalse(browser.find("#evaluation").isDisplayed());
