@@ -39,11 +39,24 @@ const Precedent = (() => {
 
   let onReady = () => {};
 
+  /** The roles this page is for (body data-roles), or null when every role may use it. */
+  function pageRoles() {
+    const roles = document.body.dataset.roles;
+    return roles ? roles.split(/\s+/) : null;
+  }
+
   function showSignedIn(signedIn) {
-    document.querySelectorAll('[data-when="signed-in"]').forEach(e => { e.hidden = !signedIn; });
-    document.querySelectorAll('[data-when="signed-out"]').forEach(e => { e.hidden = signedIn; });
     const c = credentials();
-    document.getElementById('who').textContent = signedIn && c ? 'Signed in as ' + c.label : '';
+    const roles = pageRoles();
+    const allowed = !signedIn || !c || roles === null || roles.includes(c.role);
+    document.querySelectorAll('[data-when="signed-in"]').forEach(e => { e.hidden = !signedIn || !allowed; });
+    document.querySelectorAll('[data-when="signed-out"]').forEach(e => { e.hidden = signedIn; });
+    document.querySelectorAll('[data-when="other-role"]').forEach(e => { e.hidden = allowed; });
+    document.querySelectorAll('[data-when="any-role"]').forEach(e => { e.hidden = !signedIn; });
+    document.querySelectorAll('.signed-in-role').forEach(e => { e.textContent = c ? c.role : ''; });
+    document.getElementById('who').textContent = signedIn && c
+      ? 'Signed in as ' + c.name + ' (' + c.role + ')' : '';
+    return allowed;
   }
 
   function signInStatus(message, isProblem) {
@@ -59,6 +72,30 @@ const Precedent = (() => {
     signInStatus(message, true);
   }
 
+  /**
+   * Asks the service who these credentials belong to. Resolves to the stored form on success;
+   * otherwise says why on the sign-in form and resolves to null.
+   */
+  async function check(c) {
+    const r = await send('GET', '/api/v1/me', undefined, c);
+    if (r.status === 200 && r.json) return { header: c.header, value: c.value, name: r.json.name, role: r.json.role };
+    if (r.status === 401) {
+      needSignIn(c.header === 'X-Precedent-Key'
+        ? 'Not signed in: that API key is not known to this service. Check it and try again.'
+        : 'Not signed in: that user name and password do not match. Check them and try again.');
+    } else {
+      needSignIn('Not signed in: ' + problem(r));
+    }
+    return null;
+  }
+
+  /** Puts the page in its signed-in state and lets it load, if this role may use it. */
+  function enter(c) {
+    sessionStorage.setItem(STORE, JSON.stringify(c));
+    signInStatus('', false);
+    if (showSignedIn(true)) onReady();
+  }
+
   function wireSignIn() {
     const form = document.getElementById('sign-in-form');
     const useKey = () => form.elements['method'].value === 'key';
@@ -68,39 +105,40 @@ const Precedent = (() => {
     };
     form.querySelectorAll('input[name="method"]').forEach(r => r.addEventListener('change', toggle));
     toggle();
-    form.addEventListener('submit', ev => {
+    form.addEventListener('submit', async ev => {
       ev.preventDefault();
       let c;
       if (useKey()) {
         const key = form.elements['api-key'].value.trim();
         if (!key) return needSignIn('Type your API key.');
-        c = { header: 'X-Precedent-Key', value: key, label: 'API key holder' };
+        c = { header: 'X-Precedent-Key', value: key };
       } else {
         const user = form.elements['user'].value.trim();
         const password = form.elements['password'].value;
         if (!user || !password) return needSignIn('Type your user name and password.');
-        c = { header: 'Authorization', value: basic(user, password), label: user };
+        c = { header: 'Authorization', value: basic(user, password) };
       }
-      // Kept for this browser tab only; closing the tab signs out.
-      sessionStorage.setItem(STORE, JSON.stringify(c));
-      form.reset();
-      toggle();
-      signInStatus('', false);
-      showSignedIn(true);
-      onReady();
+      const button = document.getElementById('sign-in');
+      button.disabled = true;
+      signInStatus('Checking…', false);
+      try {
+        const checked = await check(c);
+        if (!checked) return;
+        // Kept for this browser tab only; closing the tab signs out.
+        form.reset();
+        toggle();
+        enter(checked);
+      } finally {
+        button.disabled = false;
+      }
     });
-    document.getElementById('sign-out').addEventListener('click', () => {
+    document.querySelectorAll('.sign-out').forEach(b => b.addEventListener('click', () => {
       needSignIn('');
       signInStatus('Signed out.', false);
-    });
+    }));
   }
 
-  /**
-   * Calls the API as the signed-in person. Resolves to {status, json}; a 401 sends the person back
-   * to the sign-in form with the service's own explanation.
-   */
-  async function call(method, path, body) {
-    const c = credentials();
+  async function send(method, path, body, c) {
     // Marked as a script call so that the service does not make the browser show its own dialog.
     const headers = { 'Accept': 'application/json', 'X-Requested-With': 'XMLHttpRequest' };
     if (c) headers[c.header] = c.value;
@@ -117,10 +155,19 @@ const Precedent = (() => {
     }
     const type = response.headers.get('Content-Type') || '';
     const json = type.includes('json') ? await response.json() : null;
-    if (response.status === 401) {
-      needSignIn('Not signed in: ' + ((json && json.detail) || 'the service refused the credentials'));
-    }
     return { status: response.status, json };
+  }
+
+  /**
+   * Calls the API as the signed-in person. Resolves to {status, json}; a 401 sends the person back
+   * to the sign-in form with the service's own explanation.
+   */
+  async function call(method, path, body) {
+    const reply = await send(method, path, body, credentials());
+    if (reply.status === 401) {
+      needSignIn('Not signed in: ' + ((reply.json && reply.json.detail) || 'the service refused the credentials'));
+    }
+    return reply;
   }
 
   /** The service's own words for a failed call: detail and each named field. */
@@ -145,14 +192,86 @@ const Precedent = (() => {
     return Number.isFinite(n) ? (100 * n).toFixed(digits === undefined ? 1 : digits) + '%' : 'n/a';
   }
 
-  /** Wires the sign-in form and calls ready() once someone is signed in. */
+  // Thresholds are written with the digits they have, and a confidence is cut (never rounded up)
+  // to the threshold's decimals: both keep the order of the numbers, so a confidence below the
+  // threshold is never written equal to or above it. The digits are those of the shortest decimal
+  // that reads back as the same number (what String(n) gives), as the service writes them.
+
+  /** A number in [0, 1] as its shortest plain decimal, without an exponent. */
+  function plain(n) {
+    const s = String(n);
+    const e = s.indexOf('e');
+    if (e < 0) return s;
+    const exponent = Number(s.slice(e + 1));
+    const digits = s.slice(0, e).replace('.', '');
+    return exponent < 0 ? '0.' + '0'.repeat(-exponent - 1) + digits : String(Math.round(n));
+  }
+
+  function decimals(s) {
+    const dot = s.indexOf('.');
+    return dot < 0 ? 0 : s.length - dot - 1;
+  }
+
+  function padded(s, min) {
+    const d = decimals(s);
+    return d >= min ? s : (d === 0 ? s + '.' : s) + '0'.repeat(min - d);
+  }
+
+  function cut(s, d) {
+    const [whole, fraction = ''] = s.split('.');
+    return d === 0 ? whole : whole + '.' + (fraction + '0'.repeat(d)).slice(0, d);
+  }
+
+  /** "0.996" as "99.6%": the decimal point moves two places, no digit is lost or rounded. */
+  function asPercent(s, min) {
+    const [whole, fraction = ''] = s.split('.');
+    const f = fraction.padEnd(2, '0');
+    const int = String(Number(whole + f.slice(0, 2)));
+    const rest = f.slice(2).padEnd(min, '0');
+    return int + (rest ? '.' + rest : '') + '%';
+  }
+
+  /** A threshold with all of its digits, at least two decimals: 0.996 → "0.996", 0.9 → "0.90". */
+  function threshold(t) {
+    const n = num(t);
+    if (n === Infinity || n > 1) return 'never';
+    return Number.isFinite(n) ? padded(plain(n), 2) : 'n/a';
+  }
+
+  /** A confidence cut to the decimals of the threshold it is compared with. */
+  function confidence(c, t) {
+    const n = num(c);
+    if (!Number.isFinite(n)) return 'n/a';
+    const tn = num(t);
+    const d = Number.isFinite(tn) && tn <= 1 ? decimals(threshold(tn)) : 2;
+    return cut(plain(n), d);
+  }
+
+  /** The same two as percentages with at least one decimal: "98.2%" against "99.6%". */
+  function thresholdPercent(t) {
+    const n = num(t);
+    if (n === Infinity || n > 1) return 'never';
+    return Number.isFinite(n) ? asPercent(padded(plain(n), 3), 1) : 'n/a';
+  }
+
+  function confidencePercent(c, t) {
+    const n = num(c);
+    if (!Number.isFinite(n)) return 'n/a';
+    const tn = num(t);
+    const d = Number.isFinite(tn) && tn <= 1 ? decimals(padded(plain(tn), 3)) : 3;
+    return asPercent(cut(plain(n), d), 1);
+  }
+
+  /** Wires the sign-in form and calls ready() once someone is signed in with a role this page is for. */
   function start(ready) {
     onReady = ready;
     wireSignIn();
-    const signedIn = credentials() !== null;
-    showSignedIn(signedIn);
-    if (signedIn) ready();
+    const c = credentials();
+    showSignedIn(c !== null);
+    // The stored credentials are checked again: the key may have been withdrawn since.
+    if (c) check(c).then(checked => { if (checked) enter(checked); });
   }
 
-  return { el, call, problem, setStatus, num, percent, start, needSignIn };
+  return { el, call, problem, setStatus, num, percent, threshold, confidence, thresholdPercent,
+    confidencePercent, start, needSignIn };
 })();

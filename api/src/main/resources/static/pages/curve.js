@@ -1,6 +1,7 @@
 'use strict';
 // The risk-coverage curve as inline SVG: how many tickets get an automatic reply (coverage) against
-// how many of those replies are wrong (risk), with the threshold in force and the chosen one marked.
+// how many of those replies are wrong (risk), with the threshold in force, the guaranteed one and the
+// chosen one marked.
 const Curve = (() => {
   const NS = 'http://www.w3.org/2000/svg';
   const W = 640, H = 340, LEFT = 64, RIGHT = 18, TOP = 16, BOTTOM = 52;
@@ -23,7 +24,7 @@ const Curve = (() => {
 
   /**
    * @param points risk-coverage points of the report
-   * @param marks  [{coverage, risk, kind: 'in-force'|'chosen', label}]
+   * @param marks  [{coverage, risk, kind: 'in-force'|'recommended'|'chosen', threshold, label}]
    */
   function draw(points, marks) {
     const yTop = riskTop(points);
@@ -54,8 +55,13 @@ const Curve = (() => {
       points: sorted.map(p => x(p.c).toFixed(1) + ',' + y(Math.min(p.r, yTop)).toFixed(1)).join(' ') }));
     for (const m of marks) {
       if (!Number.isFinite(m.coverage) || !Number.isFinite(m.risk)) continue;
-      const dot = svg('circle', { class: m.kind, cx: x(m.coverage), cy: y(Math.min(m.risk, yTop)),
-        r: m.kind === 'chosen' ? 6 : 8, 'data-threshold': m.threshold });
+      const cx = x(m.coverage), cy = y(Math.min(m.risk, yTop));
+      // The guaranteed threshold is a diamond, so that it reads apart from the two circles.
+      const dot = m.kind === 'recommended'
+        ? svg('rect', { class: m.kind, x: cx - 6, y: cy - 6, width: 12, height: 12,
+          transform: `rotate(45 ${cx} ${cy})`, 'data-threshold': m.threshold })
+        : svg('circle', { class: m.kind, cx, cy, r: m.kind === 'chosen' ? 6 : 8,
+          'data-threshold': m.threshold });
       dot.append(svg('title', {}, m.label));
       root.append(dot);
     }

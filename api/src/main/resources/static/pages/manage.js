@@ -1,11 +1,13 @@
 'use strict';
 // The manager's page: measured consequences of a threshold, applying one with a reason, the audit.
 (() => {
-  const { el, call, problem, setStatus, num, percent } = Precedent;
+  const { el, call, problem, setStatus, num, percent, threshold } = Precedent;
   const $ = id => document.getElementById(id);
 
   let report = null;   // the latest evaluation
   let system = null;   // its fused system: what the service decides with
+  let rows = [];       // what each measured threshold would do, ascending by threshold
+  let gated = false;   // whether the rows count the safety gate's hand-offs (newer evaluations)
   let inForce = null;  // GET /api/v1/threshold
 
   const BASIS = {
@@ -14,27 +16,39 @@
     MEASURED: 'the measured threshold (no guarantee was possible)',
   };
 
-  /** The threshold table's row nearest to t (the table has one row per 0.01). */
-  function row(t) {
-    let best = null;
-    for (const r of system.thresholds) {
-      if (best === null || Math.abs(r.threshold - t) < Math.abs(best.threshold - t)) best = r;
-    }
+  /** The recommended (guaranteed) threshold, or null when none could be guaranteed. */
+  function recommended() {
+    const r = system.recommendation;
+    return r && r.status === 'OK' ? num(r.threshold) : null;
+  }
+
+  /** Index of the measured threshold equal to t, else the nearest one. */
+  function indexOf(t) {
+    let best = 0;
+    rows.forEach((r, i) => {
+      if (Math.abs(r.threshold - t) < Math.abs(rows[best].threshold - t)) best = i;
+    });
     return best;
   }
 
+  function chosen() {
+    return rows[Number($('threshold').value)];
+  }
+
   function mark(t, kind, label) {
-    const r = row(t);
+    const r = rows[indexOf(t)];
     if (!r || r.answered === 0) return { kind };
-    return { kind, threshold: t.toFixed(2), coverage: num(r.answeredShare), risk: 1 - num(r.precision),
-      label: label + ' ' + t.toFixed(2) + ': ' + percent(r.answeredShare) + ' answered, '
+    const exact = r.threshold === t ? '' : ' (nearest measured: ' + threshold(r.threshold) + ')';
+    return { kind, threshold: threshold(t), coverage: num(r.answeredShare), risk: 1 - num(r.precision),
+      label: label + ' ' + threshold(t) + exact + ': ' + percent(r.answeredShare) + ' answered, '
         + percent(1 - num(r.precision)) + ' of them wrong' };
   }
 
   function showFigures() {
-    const t = Number($('threshold').value);
-    const r = row(t);
-    $('threshold-value').textContent = t.toFixed(2);
+    const r = chosen();
+    const t = threshold(r.threshold);
+    $('threshold-value').textContent = t;
+    $('threshold').setAttribute('aria-valuetext', t);
     $('answered-share').textContent = percent(r.answeredShare);
     $('answered-count').textContent = r.answered + ' of ' + report.tickets + ' held-out tickets';
     $('precision').textContent = percent(r.precision);
@@ -42,34 +56,74 @@
       : percent(r.precisionLower) + ' to ' + percent(r.precisionUpper);
     const wrong = num(r.wrongPerThousand);
     $('wrong-per-thousand').textContent = Number.isFinite(wrong) ? wrong.toFixed(1) : 'n/a';
-    $('apply').textContent = 'Apply threshold ' + t.toFixed(2);
-    const marks = [mark(inForce.global, 'in-force', 'In force'), mark(t, 'chosen', 'Chosen')];
-    $('chart').replaceChildren(Curve.draw(system.riskCoverage, marks));
+    $('safety-hand-offs').textContent = gated ? String(r.safetyHandOffs) : 'n/a';
+    $('safety-label').textContent = gated
+      ? 'handed to a person by the safety gate although their confidence reached ' + t + ' ('
+        + system.safetyHandOffs + ' of ' + report.tickets + ' held-out tickets fall under it)'
+      : 'handed off by the safety gate: not recorded in this evaluation';
+    $('apply').textContent = 'Apply threshold ' + t;
+    const rec = recommended();
+    $('use-recommended').disabled = rec !== null && r.threshold === rec;
+    const marks = [mark(num(inForce.global), 'in-force', 'In force')];
+    if (rec !== null) marks.push(mark(rec, 'recommended', 'Guaranteed'));
+    marks.push(mark(r.threshold, 'chosen', 'Chosen'));
+    $('chart').replaceChildren(Curve.draw(curve(), marks));
+  }
+
+  /** The curve of what the rows would do; the model's own curve for evaluations without them. */
+  function curve() {
+    if (!gated) return system.riskCoverage;
+    return rows.filter(r => r.answered > 0)
+      .map(r => ({ coverage: num(r.answeredShare), risk: 1 - num(r.precision) }));
+  }
+
+  function showRecommendation() {
+    const rec = recommended();
+    const button = $('use-recommended');
+    button.hidden = rec === null;
+    if (rec !== null) {
+      const r = system.recommendation;
+      button.textContent = 'Choose the guaranteed threshold ' + threshold(rec);
+      $('recommendation').textContent = 'Guaranteed: with probability ' + percent(1 - num(report.delta))
+        + ' its replies are at least ' + percent(r.targetPrecision) + ' right (measured on the model '
+        + 'alone: ' + percent(r.coverage) + ' answered, ' + percent(r.empiricalPrecision) + ' right).';
+    } else {
+      $('recommendation').textContent = 'No threshold could be guaranteed to reach '
+        + percent(report.targetPrecision) + ' right replies on these held-out tickets.';
+    }
   }
 
   function showInForce() {
     const overrides = Object.entries(inForce.perCategory || {});
-    $('in-force').textContent = 'In force now: ' + num(inForce.global).toFixed(4)
-      + (overrides.length ? '; own thresholds for ' + overrides.map(([c, v]) => c + ' ' + num(v).toFixed(2)).join(', ') : '')
-      + (inForce.modelVersion ? ' (model ' + inForce.modelVersion + ')' : '') + '.';
+    const global = num(inForce.global);
+    const measured = rows.some(r => r.threshold === global);
+    $('in-force').textContent = 'In force now: ' + threshold(global)
+      + (overrides.length ? '; own thresholds for ' + overrides.map(([c, v]) => c + ' ' + threshold(v)).join(', ') : '')
+      + (inForce.modelVersion ? ' (model ' + inForce.modelVersion + ')' : '') + '.'
+      + (measured ? '' : ' The evaluation measured no threshold at exactly this value: the slider '
+        + 'and the curve show the nearest one.');
   }
 
   function showCategories() {
     const table = system.categories;
-    $('categories-note').textContent = 'Measured at threshold ' + num(table.threshold).toFixed(2) + ', '
+    $('categories-note').textContent = 'Measured at threshold ' + threshold(table.threshold) + ', '
       + (BASIS[table.basis] || table.basis) + '. The evaluation keeps category results at that one '
-      + 'threshold only, so this table does not follow the slider. The figures measure confidence '
-      + 'alone: in service, questions under a safety rule or in a people-only category are still '
-      + 'handed off.';
+      + 'threshold only, so this table does not follow the slider. '
+      + (gated ? 'Questions the safety gate hands to a person (a safety rule, a people-only '
+        + 'category or answer) count as handed off, as in service.'
+        : 'This evaluation did not record the safety gate: its figures measure confidence alone. '
+        + 'Run precedent evaluate again to see what the service would do.');
     const own = inForce.perCategory || {};
     $('categories').tBodies[0].replaceChildren(...table.rows.map(c => el('tr', {},
       el('th', { scope: 'row' }, c.category),
       el('td', { class: 'number' }, c.tickets),
       el('td', { class: 'number' }, c.inScope),
       el('td', { class: 'number' }, percent(c.top1)),
-      el('td', { class: 'number' }, percent(c.coverage) + ' (' + c.answered + ')'),
-      el('td', { class: 'number' }, percent(c.precision)),
-      el('td', { class: 'number' }, c.category in own ? num(own[c.category]).toFixed(2) : '–'))));
+      el('td', { class: 'number' }, gated ? percent(c.serviceCoverage) + ' (' + c.serviceAnswered + ')'
+        : percent(c.coverage) + ' (' + c.answered + ')'),
+      el('td', { class: 'number' }, percent(gated ? c.servicePrecision : c.precision)),
+      el('td', { class: 'number' }, gated ? c.safetyHandOffs : 'n/a'),
+      el('td', { class: 'number' }, c.category in own ? threshold(own[c.category]) : '–'))));
   }
 
   async function loadChanges() {
@@ -90,7 +144,7 @@
       $('reason').focus();
       return setStatus(status, 'Say why the threshold changes: the reason is kept in the audit list.', true);
     }
-    const t = Number($('threshold').value);
+    const t = chosen().threshold;
     $('apply').disabled = true;
     // The service replaces category thresholds with what is sent, so the ones in force go along.
     const r = await call('PUT', '/api/v1/threshold',
@@ -103,6 +157,14 @@
     showInForce();
     showFigures();
     await loadChanges();
+  }
+
+  /** The rows the slider steps over: what the service would do, or the model's grid in old reports. */
+  function measuredRows(s) {
+    gated = Array.isArray(s.service) && s.service.length > 0;
+    const list = gated ? s.service : s.thresholds;
+    return list.map(r => Object.assign({}, r, { threshold: num(r.threshold) }))
+      .sort((a, b) => a.threshold - b.threshold);
   }
 
   async function load() {
@@ -122,10 +184,17 @@
     if (evaluation.status === 200) {
       report = evaluation.json;
       system = report.systems[report.systems.length - 1];
+      rows = measuredRows(system);
       $('system-name').textContent = system.name;
       $('report-source').textContent = 'Evaluation of ' + report.dataset + ', ' + report.tickets
         + ' held-out tickets, made ' + report.createdAt.replace('T', ' ').replace(/\.\d+Z$|Z$/, '') + ' UTC.';
-      $('threshold').value = (Math.round(100 * num(inForce.global)) / 100).toFixed(2);
+      $('service-note').textContent = gated ? 'The figures are what the service would have done: '
+        + 'tickets the safety gate hands to a person count as handed off, whatever their confidence.'
+        : 'This evaluation did not record the safety gate: the figures measure confidence alone, '
+        + 'and in service the safety gate hands off more. Run precedent evaluate again.';
+      $('threshold').max = String(rows.length - 1);
+      $('threshold').value = String(indexOf(num(inForce.global)));
+      showRecommendation();
       showInForce();
       showFigures();
       showCategories();
@@ -135,6 +204,11 @@
 
   document.addEventListener('DOMContentLoaded', () => {
     $('threshold').addEventListener('input', showFigures);
+    $('use-recommended').addEventListener('click', () => {
+      $('threshold').value = String(indexOf(recommended()));
+      showFigures();
+      $('threshold').focus();
+    });
     $('apply-form').addEventListener('submit', apply);
     Precedent.start(load);
   });

@@ -6,9 +6,13 @@ import java.util.Locale;
 import org.precedent.engine.decide.Decision;
 import org.precedent.engine.decide.Outcome;
 import org.precedent.engine.decide.ScoredCandidate;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.retrieve.Evidence;
 
-/** Prints a decision: outcome, reason, caution, then the ranked candidates with their evidence. */
+/**
+ * Prints a decision: outcome, reason, caution, then the candidates in the fused order with their
+ * evidence.
+ */
 final class DecisionPrinter {
   private final PrintWriter out;
   private final int candidates;
@@ -21,14 +25,18 @@ final class DecisionPrinter {
   void print(Decision d) {
     out.println("question: " + Text.abbreviate(d.question(), 200)
         + (d.truncated() ? "  (cut to the length the models take)" : ""));
+    // One chance per answer: the calibrated confidence that the best answer is right, cut to the
+    // threshold's decimals so that it never prints at or above a threshold it is below.
+    String confidence = ThresholdDecimals.confidence(d.confidence(), d.threshold());
+    String threshold = ThresholdDecimals.of(d.threshold());
     if (d.outcome() == Outcome.REPLY) {
-      out.printf(Locale.ROOT, "REPLY  confidence %.2f >= threshold %.2f%n", d.confidence(),
-          d.threshold());
+      out.println("REPLY  confidence " + confidence + " that this answer is right, threshold "
+          + threshold);
       out.println("   " + Text.abbreviate(d.reply(), 400));
     } else {
-      out.printf(Locale.ROOT, "HAND OFF (%s)  confidence %.2f, threshold %.2f%n",
-          d.reason().name().toLowerCase(Locale.ROOT).replace('_', ' '), d.confidence(),
-          d.threshold());
+      out.println("HAND OFF (" + d.reason().name().toLowerCase(Locale.ROOT).replace('_', ' ')
+          + ")  confidence " + confidence + " that the best answer is right, threshold "
+          + threshold);
       if (d.caution() != null) {
         out.println("   caution for the customer: " + d.caution());
       }
@@ -38,10 +46,11 @@ final class DecisionPrinter {
         d.candidates().size()));
     for (int i = 0; i < shown.size(); i++) {
       ScoredCandidate c = shown.get(i);
-      out.printf(Locale.ROOT, "%n%d. answer %s  P(right) %.2f  BM25 %.2f (rank %d)  reranker %.1f "
+      // The candidates' own scores order them; only the first has a calibrated chance (above).
+      out.printf(Locale.ROOT, "%n%d. answer %s%s  BM25 %.2f (rank %d)  reranker %.1f "
               + "(%.2f per token)  used %d times%n", i + 1, c.candidate().group().id(),
-          c.probability(), c.candidate().score(), c.candidate().rank(), c.rerank().antiLm(),
-          c.rerank().perTokenLogLikelihood(), c.candidate().group().size());
+          i == 0 ? "  (the best answer)" : "", c.candidate().score(), c.candidate().rank(),
+          c.rerank().antiLm(), c.rerank().perTokenLogLikelihood(), c.candidate().group().size());
       out.println("   " + Text.abbreviate(c.candidate().group().canonical(), 160));
       for (Evidence e : c.candidate().evidence()) {
         out.println(RetrievalPrinter.evidenceLine(e));

@@ -20,6 +20,7 @@ import org.precedent.engine.evaluate.HeldOutRuns;
 import org.precedent.engine.evaluate.HtmlReport;
 import org.precedent.engine.evaluate.ReportFiles;
 import org.precedent.engine.evaluate.SystemReport;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.measure.ThresholdRecommendation;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
@@ -118,7 +119,7 @@ final class EvaluateCommand implements Callable<Integer> {
       questions.add(new HeldOutRuns.HeldOutQuestion(t.id(), t.question(), t.category(), right));
     }
     var runs = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
-        new Ranker(active.fusion()), questions, new Progress("evaluating", "tickets", System.err));
+        new Ranker(active.fusion()), active.safety(), questions, new Progress("evaluating", "tickets", System.err));
     EvaluationReport report = EvaluationReports.build(dataset + " (model " + active.version()
         + ")", runs, target);
     Files.createDirectories(dir);
@@ -129,10 +130,8 @@ final class EvaluateCommand implements Callable<Integer> {
     ReportFiles.writeJson(report, json);
     ReportFiles.writeJson(report, dir.resolve("latest.json"));
     ReportFiles.writeHtml(HtmlReport.render(report, previous), html);
-    // The report measures the model; in service the safety rules hand these off whatever it says.
-    long safetyHandOffs = questions.stream()
-        .filter(q -> active.safety().check(q.question(), q.category(), null).isPresent()).count();
-    return new Evaluation(report, questions, html, json, safetyHandOffs);
+    // In service the safety gate hands these off whatever the confidence says.
+    return new Evaluation(report, questions, html, json, fused(report).safetyHandOffs());
   }
 
   /** Puts the fused system's guaranteed threshold in force, when there is one. */
@@ -142,7 +141,8 @@ final class EvaluateCommand implements Callable<Integer> {
     if (r.repliesAutomatically()) {
       ActiveModel.writeThresholds(dataDir, new Thresholds(r.threshold(),
           active.thresholds().perCategory()));
-      w.printf(Locale.ROOT, "threshold %.4f is now in force for automatic replies%n", r.threshold());
+      w.println("threshold " + ThresholdDecimals.of(r.threshold()) + " is now in force for automatic "
+          + "replies");
     } else {
       w.println("no threshold could be guaranteed; the threshold in force is unchanged");
     }

@@ -14,7 +14,7 @@ class PageRoutes implements WebMvcConfigurer {
   @Override
   public void addViewControllers(ViewControllerRegistry registry) {
     registry.addViewController("/").setViewName("forward:/pages/index.html");
-    registry.addViewController("/desk").setViewName("forward:/pages/desk.html");
+    registry.addViewController("/answers").setViewName("forward:/pages/answers.html");
     registry.addViewController("/manage").setViewName("forward:/pages/manage.html");
   }
 }

@@ -9,7 +9,9 @@ import org.precedent.engine.decide.ScoredCandidate;
  * @param rank        1 for the best
  * @param answerGroup the answer's id
  * @param answer      the answer's text, as past agents wrote it (cleaned)
- * @param probability the fused model's chance that this answer is right, before calibration
+ * @param probability the fused model's score, used to order the answers; not calibrated, so not
+ *                    a chance to rely on (kept for callers that sort by it): the decision's
+ *                    {@code confidence} is the calibrated chance that the first answer is right
  * @param bm25        the word-overlap score of its past tickets
  * @param usedTimes   how many past tickets it resolved
  * @param category    the category most of those tickets had, if any

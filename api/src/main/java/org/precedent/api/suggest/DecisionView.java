@@ -12,7 +12,8 @@ import org.precedent.engine.decide.Decision;
  * @param question     the question as cleaned and redacted
  * @param answerGroup  the best answer's id, absent when nothing matched
  * @param reply        the automatic reply, present only for REPLY
- * @param confidence   calibrated chance that the best answer is right
+ * @param confidence   calibrated chance that the best answer (the first candidate) is right: the
+ *                     one figure to trust; candidates carry no chance of their own
  * @param threshold    the confidence needed for an automatic reply in this category
  * @param caution      what the customer should do now; present when a safety rule fired
  * @param safetyTopic  the safety rule's topic, when one fired

@@ -40,7 +40,7 @@ class SecurityConfig {
 
   static boolean isPage(HttpServletRequest request) {
     String path = request.getRequestURI();
-    return path.equals("/") || path.equals("/desk") || path.equals("/manage")
+    return path.equals("/") || path.equals("/answers") || path.equals("/manage")
         || path.startsWith("/pages/");
   }
 
@@ -83,7 +83,8 @@ class SecurityConfig {
             .requestMatchers("/api/v1/openapi", "/api/v1/openapi/**", "/api/v1/docs",
                 "/api/v1/docs/**", "/swagger-ui/**").permitAll()
             // The pages hold no data; they call the API below with the caller's own credentials.
-            .requestMatchers(GET, "/", "/desk", "/manage", "/pages/**", "/error").permitAll()
+            .requestMatchers(GET, "/", "/answers", "/manage", "/pages/**", "/error").permitAll()
+            .requestMatchers(GET, "/api/v1/me").authenticated()
             .requestMatchers(POST, "/api/v1/suggestions").hasAnyRole("AGENT", "MANAGER")
             .requestMatchers(POST, "/api/v1/decisions").hasAnyRole("AGENT", "MANAGER", "QUEUE")
             .requestMatchers(POST, "/api/v1/queue/tickets").hasRole("QUEUE")

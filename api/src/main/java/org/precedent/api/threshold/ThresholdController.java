@@ -9,7 +9,6 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import org.precedent.api.system.AuditColumns;
@@ -19,6 +18,7 @@ import org.precedent.api.system.ModelHolder;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.ReportFiles;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.jdbc.core.JdbcTemplate;
@@ -121,10 +121,11 @@ class ThresholdController {
     return ReportFiles.readJson(latest);
   }
 
+  /** Every digit of each threshold, at least four decimals: the audit names the rule exactly. */
   static String describe(Thresholds t) {
-    StringBuilder s = new StringBuilder(String.format(Locale.ROOT, "global=%.4f", t.global()));
+    StringBuilder s = new StringBuilder("global=" + ThresholdDecimals.of(t.global(), 4));
     new TreeMap<>(t.perCategory()).forEach((c, v) ->
-        s.append(String.format(Locale.ROOT, "; %s=%.4f", quoted(c), v)));
+        s.append("; ").append(quoted(c)).append('=').append(ThresholdDecimals.of(v, 4)));
     return s.toString();
   }
 

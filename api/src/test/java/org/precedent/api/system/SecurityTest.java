@@ -110,7 +110,7 @@ class SecurityTest {
 
   @Test
   void pagesAreOpenWithAContentPolicyAndTheirCallsGetNoBrowserPasswordDialog() {
-    for (String page : List.of("/", "/desk", "/manage", "/pages/desk.js")) {
+    for (String page : List.of("/", "/answers", "/manage", "/pages/answers.js")) {
       Reply r = http.get(page, Caller.NOBODY);
       assertEquals(200, r.status(), page);
       assertTrue(r.header("Content-Security-Policy").contains("script-src 'self'"), page);

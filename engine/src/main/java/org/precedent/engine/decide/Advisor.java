@@ -3,6 +3,7 @@ package org.precedent.engine.decide;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.safety.SafetyFinding;
 import org.precedent.engine.safety.SafetyPolicy;
@@ -52,12 +53,7 @@ public final class Advisor {
     AnswerGroup best = candidates.isEmpty() ? null : candidates.get(0).candidate().group();
     double confidence = ranked.confidence();
 
-    Optional<SafetyFinding> finding = safety.check(question, category,
-        best == null ? null : best.id());
-    if (finding.isEmpty() && best != null && best.category() != null) {
-      // The best answer's own category counts too: a safety answer is for people to send.
-      finding = safety.check(question, best.category(), best.id());
-    }
+    Optional<SafetyFinding> finding = SafetyGate.check(safety, question, category, best);
     String groupId = best == null ? null : best.id();
     if (finding.isPresent()) {
       SafetyFinding f = finding.get();
@@ -75,13 +71,15 @@ public final class Advisor {
     if (confidence < threshold) {
       return new Decision(Outcome.HAND_OFF, HandOffReason.BELOW_THRESHOLD, question, groupId,
           null, confidence, threshold, null, null, candidates, String.format(Locale.ROOT,
-              "The best answer (%s) has confidence %.2f, below the threshold %.2f: a person "
-                  + "should check it.", groupId, confidence, threshold), truncated);
+              "The best answer (%s) has confidence %s, below the threshold %s: a person "
+                  + "should check it.", groupId, ThresholdDecimals.confidence(confidence, threshold),
+              ThresholdDecimals.of(threshold)), truncated);
     }
     return new Decision(Outcome.REPLY, null, question, groupId, best.canonical(), confidence,
         threshold, null, null, candidates, String.format(Locale.ROOT,
-            "Answer %s has confidence %.2f, at or above the threshold %.2f; it resolved %d past "
-                + "tickets.", groupId, confidence, threshold, best.size()), truncated);
+            "Answer %s has confidence %s, at or above the threshold %s; it resolved %d past "
+                + "tickets.", groupId, ThresholdDecimals.confidence(confidence, threshold),
+            ThresholdDecimals.of(threshold), best.size()), truncated);
   }
 
   private static String explainSafety(SafetyFinding f) {

@@ -11,10 +11,10 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Properties;
 import java.util.TreeSet;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.store.AtomicFiles;
 
 /**
@@ -109,6 +109,7 @@ final class ThresholdsFile {
   }
 
   private static String number(double v) {
-    return String.format(Locale.ROOT, "%.4f", v);
+    // Every digit is kept: a threshold written rounded would be another rule than the one chosen.
+    return ThresholdDecimals.of(v, 4);
   }
 }

@@ -11,6 +11,12 @@ package org.precedent.engine.evaluate;
  * @param answered  tickets that would have been answered automatically at the threshold
  * @param coverage  answered / tickets
  * @param precision share of those replies that were right; NaN when nothing was answered
+ * @param serviceAnswered  tickets the service would have answered: the same, less those the
+ *                         safety gate hands to a person
+ * @param serviceCoverage  serviceAnswered / tickets
+ * @param servicePrecision share of those replies that were right; NaN when nothing was answered
+ * @param safetyHandOffs   answered - serviceAnswered: tickets the safety gate stopped
  */
-public record CategoryRow(
-    String category, int tickets, int inScope, double top1, int answered, double coverage, double precision) {}
+public record CategoryRow(String category, int tickets, int inScope, double top1, int answered,
+    double coverage, double precision, int serviceAnswered, double serviceCoverage,
+    double servicePrecision, int safetyHandOffs) {}

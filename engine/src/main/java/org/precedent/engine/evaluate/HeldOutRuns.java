@@ -7,9 +7,11 @@ import java.util.Map;
 import org.precedent.engine.decide.CandidateScoring;
 import org.precedent.engine.decide.Ranked;
 import org.precedent.engine.decide.Ranker;
+import org.precedent.engine.decide.SafetyGate;
 import org.precedent.engine.decide.ScoredCandidate;
 import org.precedent.engine.decide.ScoringSystem;
 import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.safety.SafetyPolicy;
 import org.precedent.knowledge.progress.Progress;
 import org.precedent.knowledge.retrieve.Retriever;
 
@@ -29,8 +31,18 @@ public final class HeldOutRuns {
   public record HeldOutQuestion(String ticketId, String question, String category,
       String rightGroup) {}
 
+  /** The model alone: no safety gate in front of any ticket. */
   public static List<SystemRun> run(Retriever retriever, Scorer scorer, Ranker ranker,
       List<HeldOutQuestion> questions, Progress progress) {
+    return run(retriever, scorer, ranker, null, questions, progress);
+  }
+
+  /**
+   * @param safety the policy whose gate the service puts before the threshold, so that each ticket
+   *               records whether it would be handed off whatever the confidence; null for none
+   */
+  public static List<SystemRun> run(Retriever retriever, Scorer scorer, Ranker ranker,
+      SafetyPolicy safety, List<HeldOutQuestion> questions, Progress progress) {
     Map<ScoringSystem, List<EvaluatedTicket>> bySystem = new EnumMap<>(ScoringSystem.class);
     for (ScoringSystem s : ScoringSystem.values()) {
       bySystem.put(s, new ArrayList<>());
@@ -41,9 +53,13 @@ public final class HeldOutRuns {
       CandidateScoring scoring = CandidateScoring.of(retriever, scorer, q.question(), null);
       for (ScoringSystem s : ScoringSystem.values()) {
         Ranked ranked = ranker.rank(s, scoring.candidates(), scoring.scores());
+        // Each system would send its own best answer, which the gate looks at too.
+        boolean gated = safety != null && SafetyGate.check(safety, q.question(), q.category(),
+            ranked.candidates().isEmpty() ? null
+                : ranked.candidates().get(0).candidate().group()).isPresent();
         bySystem.get(s).add(new EvaluatedTicket(q.ticketId(),
             q.category() == null ? "(none)" : q.category(), q.rightGroup() != null,
-            rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence()));
+            rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated));
       }
       progress.update(++done);
     }

@@ -7,7 +7,7 @@ final class ReportStyle {
   // Calm and print-friendly: warm paper background, one deep blue-green accent, tabular figures for
   // numbers so columns line up, and contrast above 4.5:1 for all text.
   static final String CSS = """
-      :root{--ink:#1e2a32;--muted:#56626b;--line:#e4e0d6;--paper:#f6f4ee;--card:#fff;--accent:#245661;}
+      :root{--ink:#1e2a32;--muted:#56626b;--line:#e4e0d6;--paper:#f6f4ee;--card:#fff;--accent:#26285e;}
       *{box-sizing:border-box}
       body{margin:0;background:var(--paper);color:var(--ink);
         font:15px/1.55 system-ui,-apple-system,"Segoe UI","Noto Sans",Roboto,sans-serif}
@@ -38,8 +38,8 @@ final class ReportStyle {
       th.system{text-align:center}
       tr.group th{background:#faf8f3;font-size:12px;text-transform:uppercase;letter-spacing:.05em;color:var(--muted);padding-top:10px}
       .first{border-left:1px solid var(--line)}
-      td.best{background:#e6f0ee}
-      td.best strong{color:#123f47}
+      td.best{background:#ebebf6}
+      td.best strong{color:#1b1d36}
       .interval{color:var(--muted);font-size:13px}
       .swatch{display:inline-block;width:20px;border-top:3px solid;vertical-align:middle;margin-right:7px}
       .advice{border-left:5px solid var(--accent);background:#fbfaf7;padding:8px 16px 10px;margin:10px 0;border-radius:0 4px 4px 0}

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
+import java.util.TreeSet;
 import java.util.TreeMap;
 import org.precedent.engine.measure.Calibration;
 import org.precedent.engine.measure.Discrimination;
@@ -13,6 +14,7 @@ import org.precedent.engine.measure.Ranking;
 import org.precedent.engine.measure.RiskCoveragePoint;
 import org.precedent.engine.measure.ScoredAnswer;
 import org.precedent.engine.measure.SelectivePrediction;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.measure.ThresholdRecommendation;
 import org.precedent.engine.measure.ThresholdRow;
 import org.precedent.engine.measure.ThresholdTable;
@@ -39,7 +41,43 @@ final class SystemEvaluation {
         Curves.downsample(curve, EvaluationReports.MAX_CURVE_POINTS),
         Calibration.reliabilityDiagram(scored, Calibration.DEFAULT_BINS),
         ThresholdTable.rows(scored, THRESHOLD_GRID), recommendation,
-        categories(tickets, categoryThreshold(recommendation, given, curve, targetPrecision)));
+        categories(tickets, categoryThreshold(recommendation, given, curve, targetPrecision)),
+        (int) tickets.stream().filter(EvaluatedTicket::safetyGate).count(),
+        service(tickets, serviceThresholds(curve, recommendation)));
+  }
+
+  /**
+   * The thresholds a manager can choose between: the grid, each step of the risk-coverage curve by
+   * its shortest name (thinned as the curve is), and the recommended threshold; ascending.
+   */
+  static List<Double> serviceThresholds(List<RiskCoveragePoint> curve,
+      ThresholdRecommendation recommendation) {
+    List<Double> steps = new ArrayList<>(curve.size());
+    for (int i = 0; i < curve.size(); i++) {
+      // The curve runs from the highest confidence down, so the next point is the next lower one.
+      steps.add(ThresholdDecimals.naming(curve.get(i).threshold(), i + 1 < curve.size()
+          ? curve.get(i + 1).threshold() : Double.NEGATIVE_INFINITY));
+    }
+    TreeSet<Double> all = new TreeSet<>(THRESHOLD_GRID);
+    all.addAll(Curves.downsample(steps, EvaluationReports.MAX_CURVE_POINTS));
+    if (recommendation.repliesAutomatically()) {
+      all.add(recommendation.threshold());
+    }
+    return List.copyOf(all);
+  }
+
+  /** What the service would do at each threshold: the safety gate first, then the threshold. */
+  static List<ServiceRow> service(List<EvaluatedTicket> tickets, List<Double> thresholds) {
+    List<ScoredAnswer> open = tickets.stream().filter(t -> !t.safetyGate())
+        .map(EvaluatedTicket::scored).toList();
+    List<EvaluatedTicket> gated = tickets.stream().filter(EvaluatedTicket::safetyGate).toList();
+    List<ThresholdRow> rows = ThresholdTable.rows(open, gated.size(), thresholds);
+    List<ServiceRow> out = new ArrayList<>(rows.size());
+    for (ThresholdRow r : rows) {
+      int stopped = (int) gated.stream().filter(t -> t.confidence() >= r.threshold()).count();
+      out.add(ServiceRow.of(r, stopped));
+    }
+    return List.copyOf(out);
   }
 
   static Measures measures(List<ScoredAnswer> scored, List<RankedOutcome> ranked) {
@@ -100,8 +138,10 @@ final class SystemEvaluation {
     double top1 = ranked.isEmpty() ? Double.NaN : Ranking.top1Accuracy(ranked);
     List<ScoredAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
     ThresholdRow at = ThresholdTable.rows(scored, List.of(threshold)).get(0);
+    ServiceRow served = service(tickets, List.of(threshold)).get(0);
     return new CategoryRow(category, tickets.size(), ranked.size(), top1, at.answered(), at.answeredShare(),
-        at.precision());
+        at.precision(), served.answered(), served.answeredShare(), served.precision(),
+        served.safetyHandOffs());
   }
 
   private static List<Double> grid() {

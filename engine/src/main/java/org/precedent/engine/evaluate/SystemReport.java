@@ -19,6 +19,11 @@ import org.precedent.engine.measure.ThresholdRow;
  * @param thresholds     one row per threshold 0.00, 0.01, ..., 1.00
  * @param recommendation the guaranteed threshold for the report's target precision
  * @param categories     per-category results
+ * @param safetyHandOffs held-out tickets the safety gate hands to a person whatever the confidence
+ * @param service        what the service would have done, the safety gate included, at every
+ *                       threshold of {@code thresholds}, at every step of the risk-coverage curve
+ *                       (named by its shortest decimal, thinned as the curve is) and at the
+ *                       recommended threshold; ascending; empty in reports made before it was kept
  */
 public record SystemReport(
     String name,
@@ -27,7 +32,9 @@ public record SystemReport(
     List<ReliabilityBin> reliability,
     List<ThresholdRow> thresholds,
     ThresholdRecommendation recommendation,
-    CategoryTable categories) {
+    CategoryTable categories,
+    int safetyHandOffs,
+    List<ServiceRow> service) {
   public SystemReport {
     Objects.requireNonNull(name, "name");
     Objects.requireNonNull(measures, "measures");
@@ -36,5 +43,6 @@ public record SystemReport(
     riskCoverage = List.copyOf(riskCoverage);
     reliability = List.copyOf(reliability);
     thresholds = List.copyOf(thresholds);
+    service = service == null ? List.of() : List.copyOf(service);
   }
 }

@@ -90,7 +90,7 @@ public final class GuaranteedThreshold {
 
     if (bestStart >= 0) {
       int accepted = n - bestStart;
-      return new ThresholdRecommendation(ThresholdRecommendation.Status.OK, confidence[bestStart],
+      return new ThresholdRecommendation(ThresholdRecommendation.Status.OK, named(confidence, bestStart),
           (double) accepted / n, (double) rightFrom[bestStart] / accepted, bestBound, n, tried,
           targetPrecision, correctedDelta, minimal);
     }
@@ -99,6 +99,15 @@ public final class GuaranteedThreshold {
         : ThresholdRecommendation.Status.NOT_CERTIFIED;
     return new ThresholdRecommendation(status, Double.POSITIVE_INFINITY, 0.0, Double.NaN, Double.NaN,
         n, tried, targetPrecision, correctedDelta, minimal);
+  }
+
+  /**
+   * The certified threshold by its shortest name ({@link ThresholdDecimals#naming}): it replies to
+   * the same held-out answers, so the bound computed for the probed confidence is the bound for it.
+   */
+  private static double named(double[] ascending, int start) {
+    return ThresholdDecimals.naming(ascending[start],
+        start > 0 ? ascending[start - 1] : Double.NEGATIVE_INFINITY);
   }
 
   /** ceil(log2 n), at least 1: the number of binary-search steps, and the Bonferroni divisor. */

@@ -73,9 +73,9 @@ public record ThresholdRecommendation(
     switch (status) {
       case OK:
         return String.format(Locale.ROOT,
-            "Reply automatically at confidence >= %.4f: covers %s of tickets, %s right on held-out data; "
+            "Reply automatically at confidence >= %s: covers %s of tickets, %s right on held-out data; "
                 + "with probability at least %s the true precision is at least %s (lower bound %s).",
-            threshold, percent(coverage), percent(empiricalPrecision), percent(1 - overallDelta()),
+            ThresholdDecimals.of(threshold), percent(coverage), percent(empiricalPrecision), percent(1 - overallDelta()),
             target, percent(precisionLowerBound));
       case TOO_FEW:
         return String.format(Locale.ROOT,

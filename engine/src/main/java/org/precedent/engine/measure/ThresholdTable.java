@@ -14,9 +14,22 @@ public final class ThresholdTable {
 
   /** One row per threshold, in the order given. */
   public static List<ThresholdRow> rows(List<ScoredAnswer> answers, List<Double> thresholds) {
-    List<ScoredAnswer> all = Inputs.nonEmpty(answers, "threshold table");
+    return rows(Inputs.nonEmpty(answers, "threshold table"), 0, thresholds);
+  }
+
+  /**
+   * One row per threshold, in the order given, when {@code neverAnswered} further tickets go to a
+   * person whatever their confidence: they count among the tickets, never among the answered.
+   */
+  public static List<ThresholdRow> rows(List<ScoredAnswer> answers, int neverAnswered,
+      List<Double> thresholds) {
+    List<ScoredAnswer> all = List.copyOf(answers);
+    if (neverAnswered < 0 || all.size() + neverAnswered == 0) {
+      throw new IllegalArgumentException("threshold table needs at least one ticket; got "
+          + all.size() + " answerable and " + neverAnswered + " never answered");
+    }
     List<Double> candidates = Inputs.nonEmpty(thresholds, "threshold table (thresholds)");
-    int n = all.size();
+    int n = all.size() + neverAnswered;
     List<ThresholdRow> rows = new ArrayList<>(candidates.size());
     for (Double t : candidates) {
       double threshold = Inputs.closed01(Objects.requireNonNull(t, "threshold is null"), "threshold");

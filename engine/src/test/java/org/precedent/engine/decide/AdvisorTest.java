@@ -110,6 +110,25 @@ class AdvisorTest {
   }
 
   @Test
+  void theExplanationWritesTheThresholdExactlyAndNeverAConfidenceAboveIt() {
+    // The top confidence is 1 / (1 + e^-2) = 0.8807971 (see the class comment).
+    Decision below = decide("my bin was not emptied", null, Thresholds.global(0.881),
+        SafetyPolicy.defaults());
+    assertEquals(HandOffReason.BELOW_THRESHOLD, below.reason());
+    assertTrue(below.explanation().contains("confidence 0.880, below the threshold 0.881"),
+        below.explanation());
+    Decision justBelow = decide("my bin was not emptied", null, Thresholds.global(0.8808),
+        SafetyPolicy.defaults());
+    assertTrue(justBelow.explanation().contains("confidence 0.8807, below the threshold 0.8808"),
+        justBelow.explanation());
+    Decision justAbove = decide("my bin was not emptied", null, Thresholds.global(0.8805),
+        SafetyPolicy.defaults());
+    assertEquals(Outcome.REPLY, justAbove.outcome());
+    assertTrue(justAbove.explanation().contains("confidence 0.8807, at or above the threshold "
+        + "0.8805"), justAbove.explanation());
+  }
+
+  @Test
   void aSafetyQuestionIsHandedOffWithItsCautionWhateverTheConfidence() {
     Decision d = decide("the water from my tap is brown, my bin was not emptied", null,
         Thresholds.global(0.0), SafetyPolicy.defaults());

@@ -74,6 +74,79 @@ class EvaluationReportsTest {
   }
 
   @Test
+  void serviceFiguresCountWhatTheSafetyGateHandsOffAsHandedOff() {
+    // Invented tickets, worked by hand: (confidence, reply right, safety gate hands it off).
+    //   a 0.95 right -     bins      d 0.85 right gated  safety
+    //   b 0.90 right gated bins      e 0.60 wrong -      safety
+    //   c 0.80 wrong -     bins      f 0.30 right -      safety
+    SystemRun run = new SystemRun("A", List.of(
+        new EvaluatedTicket("a", "bins", true, 1, 0.95, false),
+        new EvaluatedTicket("b", "bins", true, 1, 0.90, true),
+        new EvaluatedTicket("c", "bins", true, 2, 0.80, false),
+        new EvaluatedTicket("d", "safety", true, 1, 0.85, true),
+        new EvaluatedTicket("e", "safety", false, 0, 0.60, false),
+        new EvaluatedTicket("f", "safety", true, 1, 0.30, false)));
+    SystemReport s = EvaluationReports.build("gate", List.of(run), 0.95, OptionalDouble.of(0.75),
+        Fixtures.CREATED).systems().get(0);
+    assertEquals(2, s.safetyHandOffs());
+
+    // At 0.75 confidence alone answers a, b, c, d (4 of 6, 3 right). In service b and d go to a
+    // person: a and c are answered, 2 of 6 = 1/3, one right = 1/2, one wrong per 6 tickets
+    // = 166.7 per 1,000; the gate handed off the 2 that confidence alone would have answered.
+    ThresholdRow model = s.thresholds().get(75);
+    assertEquals(4, model.answered());
+    ServiceRow at75 = service(s, 0.75);
+    assertEquals(2, at75.answered());
+    assertEquals(1.0 / 3, at75.answeredShare(), EPS);
+    assertEquals(0.5, at75.precision(), EPS);
+    assertEquals(1000.0 / 6, at75.wrongPerThousand(), 1e-9);
+    assertEquals(2, at75.safetyHandOffs());
+    // At 0.50: a, c, e answered (3 of 6), only a right: 1/3; wrong 2 per 6 = 333.3 per 1,000.
+    // Wilson (1927) for 1 of 3 at z = 1.96, by hand: centre (1/3 + z^2/6) / (1 + z^2/3) = 0.4269,
+    // half-width z sqrt(2/27 + z^2/36) / (1 + z^2/3) = 0.3654, so (0.0615, 0.7923).
+    ServiceRow at50 = service(s, 0.5);
+    assertEquals(3, at50.answered());
+    assertEquals(1.0 / 3, at50.precision(), EPS);
+    assertEquals(1000.0 / 3, at50.wrongPerThousand(), 1e-9);
+    assertEquals(0.0615, at50.precisionLower(), 1e-4);
+    assertEquals(0.7923, at50.precisionUpper(), 1e-4);
+    assertEquals(2, at50.safetyHandOffs());
+    // Above every confidence nothing is answered and the gate has nothing to stop.
+    ServiceRow at96 = service(s, 0.96);
+    assertEquals(0, at96.answered());
+    assertTrue(Double.isNaN(at96.precision()));
+    assertEquals(0, at96.safetyHandOffs());
+    // Every observed confidence is a row too, so each step of the curve can be chosen.
+    for (double c : new double[] {0.95, 0.9, 0.85, 0.8, 0.6, 0.3}) {
+      assertEquals(c, service(s, c).threshold(), 0.0);
+    }
+    for (int i = 1; i < s.service().size(); i++) {
+      assertTrue(s.service().get(i - 1).threshold() < s.service().get(i).threshold());
+    }
+
+    // By category at the given 0.75: bins answers a and c (2 of 3, one right), the gate stops b;
+    // safety answers nothing in service (d stopped), where confidence alone answered d.
+    CategoryRow bins = s.categories().rows().get(0);
+    assertEquals("bins", bins.category());
+    assertEquals(3, bins.answered());
+    assertEquals(2, bins.serviceAnswered());
+    assertEquals(2.0 / 3, bins.serviceCoverage(), EPS);
+    assertEquals(0.5, bins.servicePrecision(), EPS);
+    assertEquals(1, bins.safetyHandOffs());
+    CategoryRow safety = s.categories().rows().get(1);
+    assertEquals(1, safety.answered());
+    assertEquals(0, safety.serviceAnswered());
+    assertEquals(0.0, safety.serviceCoverage(), EPS);
+    assertTrue(Double.isNaN(safety.servicePrecision()));
+    assertEquals(1, safety.safetyHandOffs());
+  }
+
+  private static ServiceRow service(SystemReport s, double threshold) {
+    return s.service().stream().filter(r -> r.threshold() == threshold).findFirst()
+        .orElseThrow(() -> new AssertionError("no service row at " + threshold));
+  }
+
+  @Test
   void categoryTableUsesMeasuredThresholdWhenTooFewTicketsForAGuarantee() {
     SystemReport a = Fixtures.report("hand set", Fixtures.sixTickets("A")).systems().get(0);
     // 6 tickets cannot certify 95%: even all right, 0.95^m <= 0.05/3 needs m >= 80 (Clopper-Pearson

@@ -84,6 +84,22 @@ class GuaranteedThresholdTest {
   }
 
   @Test
+  void namesTheCertifiedThresholdByTheShortestDecimalThatRepliesToTheSameAnswers() {
+    // By construction: 200 right at 0.99604178, 100 wrong at 0.5. Certifying needs the 200 alone
+    // (the Clopper-Pearson bound of 200/200 at 0.05/9 is 0.00556^(1/200) = 0.974). Any threshold in
+    // (0.5, 0.99604178] accepts exactly those 200; the shortest decimal there within 0.001 of the
+    // certified confidence is 0.996.
+    List<ScoredAnswer> answers = new ArrayList<>();
+    add(answers, 200, 0.99604178, 200);
+    add(answers, 100, 0.5, 0);
+    ThresholdRecommendation r = GuaranteedThreshold.recommend(answers);
+    assertEquals(ThresholdRecommendation.Status.OK, r.status());
+    assertEquals(0.996, r.threshold());
+    assertEquals(200.0 / 300, r.coverage(), 1e-12);
+    assertTrue(r.explanation().contains("confidence >= 0.996:"), r.explanation());
+  }
+
+  @Test
   void saysTooFewWhenEvenAnAllRightSampleCannotCertify() {
     // 20 answers, all right. ceil(log2 20) = 5, corrected delta 0.01. The all-right bound
     // 0.01^(1/m) (Clopper and Pearson 1934) first reaches 0.95 at m = 90 (ln 0.01 / ln 0.95 = 89.78).

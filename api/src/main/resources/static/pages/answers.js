@@ -1,7 +1,7 @@
 'use strict';
-// The agent's desk: ask, read the decision and the ranked answers, and say what was done with them.
+// The agents' page: ask, read the decision and the ranked answers, and say what was done with them.
 (() => {
-  const { el, call, problem, setStatus, percent } = Precedent;
+  const { el, call, problem, setStatus, confidencePercent, thresholdPercent } = Precedent;
 
   const REASONS = {
     no_candidate: 'No past answer is close enough to propose.',
@@ -18,8 +18,11 @@
       id: 'decision', 'aria-labelledby': 'outcome' },
       el('p', { class: 'outcome', id: 'outcome' },
         reply ? 'REPLY: Precedent would answer this on its own' : 'HAND OFF: a person answers this'),
-      el('p', { class: 'figures' }, 'Confidence ' + percent(d.confidence) + ', needed '
-        + percent(d.threshold) + (d.modelVersion ? ' · model ' + d.modelVersion : '')));
+      // The one chance shown: the calibrated confidence that the best answer is right.
+      el('p', { class: 'figures', id: 'confidence' }, 'Confidence '
+        + confidencePercent(d.confidence, d.threshold) + ' that the best answer is right; '
+        + thresholdPercent(d.threshold) + ' needed to reply on its own'
+        + (d.modelVersion ? ' · model ' + d.modelVersion : '')));
     if (d.caution) {
       box.append(el('div', { class: 'caution', role: 'alert', id: 'caution' },
         el('h3', {}, 'Caution' + (d.safetyTopic ? ' (' + d.safetyTopic + ')' : '')
@@ -74,25 +77,20 @@
     return area;
   }
 
-  function suggestion(c) {
-    const p = Precedent.num(c.probability);
+  // Only the best answer has a calibrated chance (the decision's confidence); the others are
+  // shown in order, without a second figure that would read as a chance.
+  function suggestion(c, d) {
+    const best = c.rank === 1;
     return el('li', { class: 'card suggestion', 'data-answer-group': c.answerGroup },
       el('div', { class: 'suggestion-head' },
         el('span', { class: 'rank', 'aria-label': 'rank ' + c.rank }, c.rank),
-        el('span', { class: 'meter', 'aria-hidden': 'true' }, meterFill(p)),
-        el('span', {}, 'Chance it fits ' + percent(p, 0)),
+        best ? el('span', { class: 'best-label' }, 'Best answer · confidence '
+          + confidencePercent(d.confidence, d.threshold)) : null,
         el('span', { class: 'figures' }, 'used in ' + c.usedTimes + ' past tickets'
           + (c.category ? ' · ' + c.category : ''))),
       el('p', { class: 'answer' }, c.answer),
-      Evidence.list(c.evidence, c.rank === 1),
+      Evidence.list(c.evidence, best),
       feedback(c));
-  }
-
-  // The bar's width is set through the CSSOM, which the page's content policy allows.
-  function meterFill(p) {
-    const fill = el('span');
-    fill.style.width = (Number.isFinite(p) ? Math.round(100 * p) : 0) + '%';
-    return fill;
   }
 
   function show(d) {
@@ -102,7 +100,7 @@
     result.append(el('h2', {}, list.length ? 'Past answers, best first' : 'No past answer fits this question'));
     result.append(el('p', { class: 'figures' }, 'The question as Precedent read it (cleaned and redacted): ',
       el('q', { id: 'read-question' }, d.question)));
-    if (list.length) result.append(el('ol', { class: 'suggestions', id: 'suggestions' }, list.map(suggestion)));
+    if (list.length) result.append(el('ol', { class: 'suggestions', id: 'suggestions' }, list.map(c => suggestion(c, d))));
   }
 
   async function ask(ev) {
