@@ -78,13 +78,14 @@ final class EvaluateCommand implements Callable<Integer> {
     PrintWriter w = spec.commandLine().getOut();
     DataDir dataDir = new DataDir(parent.dataDir());
     EvaluationReport previous = compareTo == null ? null : ReportFiles.readJson(compareTo);
+    // The file is read before the model is opened: a wrong file name is said at once.
+    Ingestor.ParsedExport parsed = new Ingestor(dataDir, TextCleaner.standard(),
+        AnswerGrouper.standard())
+        .parse(file, ExportFormat.of(file), columns.mapping(file, spec), Progress.silent());
+    for (var p : parsed.problems()) {
+      spec.commandLine().getErr().println("skipped: " + p);
+    }
     try (ActiveModel active = ActiveModel.open(dataDir)) {
-      AnswerGrouper grouper = AnswerGrouper.standard();
-      Ingestor.ParsedExport parsed = new Ingestor(dataDir, TextCleaner.standard(), grouper)
-          .parse(file, ExportFormat.of(file), columns.mapping(file, spec), Progress.silent());
-      for (var p : parsed.problems()) {
-        spec.commandLine().getErr().println("skipped: " + p);
-      }
       Evaluation result = evaluate(active, parsed, file.getFileName().toString(), target,
           out != null ? out : dataDir.root().resolve("reports"), previous);
       print(w, result);

@@ -57,21 +57,18 @@ final class IngestCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
-    ColumnMapping mapping;
+    IngestReport report;
     try {
-      mapping = columns.mapping(file, spec);
+      ColumnMapping mapping = columns.mapping(file, spec);
+      ExportFormat exportFormat = format == null ? ExportFormat.of(file)
+          : ExportFormat.valueOf(format.toUpperCase(Locale.ROOT));
+      Ingestor ingestor = new Ingestor(new DataDir(parent.dataDir()), TextCleaner.standard(),
+          AnswerGrouper.standard());
+      report = ingestor.ingest(file, exportFormat, mapping,
+          progress("reading " + file.getFileName(), "rows"), progress("indexing", "tickets"));
     } catch (IllegalArgumentException e) {
       err.println("precedent ingest: " + e.getMessage());
       return PrecedentCommand.FAILED;
-    }
-    ExportFormat exportFormat = format == null ? ExportFormat.of(file)
-        : ExportFormat.valueOf(format.toUpperCase(Locale.ROOT));
-    Ingestor ingestor = new Ingestor(new DataDir(parent.dataDir()), TextCleaner.standard(),
-        AnswerGrouper.standard());
-    IngestReport report;
-    try {
-      report = ingestor.ingest(file, exportFormat, mapping,
-          progress("reading " + file.getFileName(), "rows"), progress("indexing", "tickets"));
     } catch (IngestException e) {
       err.println("precedent ingest: " + e.getMessage());
       err.println("nothing was stored; the data directory is as it was.");

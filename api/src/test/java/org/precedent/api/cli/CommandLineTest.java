@@ -1,6 +1,7 @@
 package org.precedent.api.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.PrintWriter;
@@ -64,6 +65,25 @@ class CommandLineTest {
     assertEquals(PrecedentCommand.FAILED, r.status());
     assertTrue(r.err().startsWith("precedent ingest: " + absent + ": no such file"), r.err());
     assertTrue(r.err().contains("nothing was stored"), r.err());
+  }
+
+  @Test
+  void aMissingFileIsReportedBeforeAMissingMapping() {
+    Path absent = tmp.resolve("absent.csv");
+    String data = tmp.resolve("data").toString();
+    for (List<String> args : List.of(List.of("ingest", absent.toString()),
+        List.of("ingest", absent.toString(), "--mapping", tmp.resolve("absent.properties").toString()),
+        List.of("evaluate", absent.toString()),
+        List.of("triage", "--in", absent.toString(), "--out", tmp.resolve("out.jsonl").toString()))) {
+      List<String> all = new java.util.ArrayList<>(List.of("--data", data));
+      all.addAll(args);
+      Run r = run(all.toArray(String[]::new));
+      assertEquals(PrecedentCommand.FAILED, r.status(), args.toString());
+      assertTrue(r.err().startsWith("precedent"), r.err());
+      assertTrue(r.err().contains(absent + ": no such file"), args + ": " + r.err());
+      assertFalse(r.err().contains("column"), args + ": " + r.err());
+      assertFalse(r.err().contains("mapping"), args + ": " + r.err());
+    }
   }
 
   @Test
