@@ -39,11 +39,12 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "evaluate", mixinStandardHelpOptions = true,
     description = {"Measures the model on held-out tickets and recommends a threshold.",
-        "BM25 alone, the reranker alone and the fused system side by side on held-out resolved",
-        "tickets (never ingested); the recommended threshold is the lowest one whose",
-        "automatic replies reach the target precision with 95% confidence.",
-        "The right answer of each held-out ticket is its label (if a label column is mapped) or",
-        "the answer group its reply reuses; a ticket whose reply reuses none is out of scope.",
+        // picocli formats descriptions: a percent sign is written %%.
+        "It compares BM25 alone, the reranker alone and the fused system side by side on held-out "
+            + "resolved tickets (never ingested). The recommended threshold is the lowest one whose "
+            + "automatic replies reach the target precision with 95%% confidence.",
+        "The right answer of each held-out ticket is its label (if a label column is mapped) or "
+            + "the answer group its reply reuses; a ticket whose reply reuses none is out of scope.",
         "Writes a JSON and an HTML report."})
 final class EvaluateCommand implements Callable<Integer> {
   @ParentCommand

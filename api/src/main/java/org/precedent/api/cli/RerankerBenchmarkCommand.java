@@ -6,9 +6,11 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 
 @Command(name = "reranker", mixinStandardHelpOptions = true,
-    description = {"Reports the reranker's training target tokens/s and its latency to score 10",
-        "candidates (p50, p99) at the default size, with the machine's ND4J matrix-multiply rate",
-        "(GFLOP/s) and the share of it the reranker achieves. Set OMP_NUM_THREADS before starting."})
+    description = {"Measures the reranker's training and scoring speed.",
+        "It reports the reranker's training target tokens/s and its latency to score 10 candidates "
+            + "(p50, p99) at the default size, with the machine's ND4J matrix-multiply rate "
+            + "(GFLOP/s) and the share of it the reranker achieves. Set OMP_NUM_THREADS before "
+            + "starting."})
 final class RerankerBenchmarkCommand implements Callable<Integer> {
   @Option(names = "--train-batches", paramLabel = "N", defaultValue = "30",
       description = "Training batches timed (default ${DEFAULT-VALUE}).")
