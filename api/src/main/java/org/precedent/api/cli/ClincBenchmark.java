@@ -100,6 +100,7 @@ final class ClincBenchmark implements Callable<Integer> {
         + "(with out-of-scope)%n", domain == null ? "full" : domain, pairs.size(),
         validation.size(), test.size());
     out.flush();
+    NumericLibrary.announce(spec.commandLine().getErr());
     long start = System.nanoTime();
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
       // Intent names are 2 to 4 words, learned better with a smaller step than the default.

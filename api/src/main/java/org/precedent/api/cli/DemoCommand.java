@@ -119,6 +119,8 @@ final class DemoCommand implements Callable<Integer> {
 
     Files.copy(dir.resolve("safety.rules"), data.resolve("safety.rules"),
         java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+    out.flush();
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
       TeamModelTrainer trainer = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
           .withEpochs(epochs, RerankerConfig.defaults().patience())

@@ -86,6 +86,7 @@ final class EvaluateCommand implements Callable<Integer> {
     for (var p : parsed.problems()) {
       spec.commandLine().getErr().println("skipped: " + p);
     }
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (ActiveModel active = ActiveModel.open(dataDir)) {
       Evaluation result = evaluate(active, parsed, file.getFileName().toString(), target,
           out != null ? out : dataDir.root().resolve("reports"), previous);

@@ -36,7 +36,11 @@ public final class PrecedentCommand {
   }
 
   public static void main(String[] args) {
-    System.exit(run(args));
+    // Precedent's own output goes to the real standard output; libraries print through a filter.
+    java.io.PrintStream stdout = System.out;
+    System.setOut(new java.io.PrintStream(new LibraryChatter(stdout), true));
+    System.exit(run(new java.io.PrintWriter(stdout, true), new java.io.PrintWriter(System.err, true),
+        args));
   }
 
   /** Runs the command line and returns its exit status, without exiting. */

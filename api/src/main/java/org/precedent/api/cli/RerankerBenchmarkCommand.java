@@ -3,7 +3,9 @@ package org.precedent.api.cli;
 import java.util.concurrent.Callable;
 import org.precedent.engine.rerank.bench.RerankerBenchmark;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
 
 @Command(name = "reranker", mixinStandardHelpOptions = true,
     description = {"Measures the reranker's training and scoring speed.",
@@ -20,8 +22,12 @@ final class RerankerBenchmarkCommand implements Callable<Integer> {
       description = "Scoring passes timed (default ${DEFAULT-VALUE}).")
   int repetitions;
 
+  @Spec
+  CommandSpec spec;
+
   @Override
   public Integer call() throws Exception {
+    NumericLibrary.announce(spec.commandLine().getErr());
     RerankerBenchmark.main(new String[] {"" + trainBatches, "" + repetitions});
     return 0;
   }

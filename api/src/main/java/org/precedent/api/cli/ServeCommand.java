@@ -62,6 +62,7 @@ final class ServeCommand implements Callable<Integer> {
   static int serve(PrintWriter out, PrintWriter err, java.nio.file.Path data, int port,
       List<String> settings) throws InterruptedException, java.io.IOException {
     ConfigurableApplicationContext context;
+    NumericLibrary.announce(err);
     try {
       context = PrecedentServer.start(data, port, settings);
     } catch (RuntimeException e) {

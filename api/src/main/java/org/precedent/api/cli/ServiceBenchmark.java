@@ -56,6 +56,7 @@ final class ServiceBenchmark implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     // The data directory of --data: one with a trained model, such as the demo's.
     Path data = benchmark.parent.dataDir();
+    NumericLibrary.announce(spec.commandLine().getErr());
     ConfigurableApplicationContext context = PrecedentServer.start(data, 0,
         List.of("--precedent.security.keys=bench:" + KEY + ":agent"));
     try {

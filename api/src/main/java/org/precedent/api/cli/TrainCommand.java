@@ -69,6 +69,7 @@ final class TrainCommand implements Callable<Integer> {
         .withEpochs(epochs, RerankerConfig.defaults().patience())
         .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
         .withLearningRate(learningRate);
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (Knowledge knowledge = opened.get()) {
       TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
       out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),

@@ -66,6 +66,7 @@ final class TriageCommand implements Callable<Integer> {
       err.println("precedent triage: " + e.getMessage());
       return PrecedentCommand.FAILED;
     }
+    NumericLibrary.announce(err);
     try (ActiveModel active = ActiveModel.open(new DataDir(parent.dataDir()))) {
       TriageRun.Result r = new TriageRun(active.advisor(), active.version(), commitEvery)
           .run(tickets, Files.size(in), output);
