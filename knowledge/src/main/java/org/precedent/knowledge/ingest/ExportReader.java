@@ -111,7 +111,7 @@ final class ExportReader {
     // Most records broken means the file is in another encoding, not that a few rows are damaged.
     if (notUtf8 > 0 && notUtf8 * 2 > records) {
       throw new IngestException(String.format(Locale.ROOT, "%s: %,d of %,d rows are not valid UTF-8 "
-          + "text (the first on line %,d: %s): the file is in another encoding; export it as "
+          + "text (the first on line %d: %s): the file is in another encoding; export it as "
           + "UTF-8 (other encodings are not guessed)", file, notUtf8, records,
           firstNotUtf8.line(), firstNotUtf8));
     }
