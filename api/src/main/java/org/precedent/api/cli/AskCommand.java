@@ -56,6 +56,7 @@ final class AskCommand implements Callable<Integer> {
           + "('precedent train' adds the reranker, confidence and the reply-or-hand-off decision)");
       return retrievalOnly(dataDir, out);
     }
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (ActiveModel active = ActiveModel.open(dataDir)) {
       Advisor advisor = active.advisor();
       DecisionPrinter printer = new DecisionPrinter(out, candidates);

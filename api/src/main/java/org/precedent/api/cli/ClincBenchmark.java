@@ -36,9 +36,10 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 @Command(name = "clinc150", mixinStandardHelpOptions = true,
-    description = {"Runs Precedent on CLINC150 (Larson et al. 2019) as the paper does: train on",
-        "'train', tune on 'val' + 'oos_val', test on 'test' + 'oos_test'; reports in-scope accuracy",
-        "and out-of-scope recall at the validation-tuned threshold next to the paper's Table 2."})
+    description = {"Runs Precedent on CLINC150 as Larson et al. (2019) do, next to their figures.",
+        "It trains on 'train', tunes on 'val' + 'oos_val' and tests on 'test' + 'oos_test', then "
+            + "reports in-scope accuracy and out-of-scope recall at the validation-tuned threshold "
+            + "next to the paper's Table 2."})
 final class ClincBenchmark implements Callable<Integer> {
   private static final TextCleaner CLEANER = TextCleaner.standard();
 
@@ -99,6 +100,7 @@ final class ClincBenchmark implements Callable<Integer> {
         + "(with out-of-scope)%n", domain == null ? "full" : domain, pairs.size(),
         validation.size(), test.size());
     out.flush();
+    NumericLibrary.announce(spec.commandLine().getErr());
     long start = System.nanoTime();
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
       // Intent names are 2 to 4 words, learned better with a smaller step than the default.

@@ -6,6 +6,8 @@ import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.precedent.knowledge.ingest.ColumnMapping;
+import org.precedent.knowledge.ingest.IngestException;
+import org.precedent.knowledge.ingest.Ingestor;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 
@@ -44,9 +46,13 @@ final class ColumnOptions {
    * Mapping key to column for an export of new tickets, which has no reply: from --mapping, the
    * column options, or a mapping.properties beside the file; reply and label columns are ignored.
    *
+   * @throws IngestException when the export itself is missing or not a text file (said first: a
+   *     mistyped file name is not a missing mapping)
    * @throws IllegalArgumentException when no question column is named, or a key is unknown
    */
-  Map<String, String> newTicketColumns(Path file, CommandSpec spec) throws IOException {
+  Map<String, String> newTicketColumns(Path file, CommandSpec spec)
+      throws IOException, IngestException {
+    Ingestor.checkFile(file);
     Map<String, String> out = new LinkedHashMap<>();
     Path mappingPath = mappingFile;
     if (mappingPath == null && question == null && subject == null && body == null) {
@@ -97,9 +103,12 @@ final class ColumnOptions {
   /**
    * The mapping from --mapping, the column options, or a mapping.properties beside the file.
    *
+   * @throws IngestException when the export itself is missing or not a text file (said first: a
+   *     mistyped file name is not a missing mapping)
    * @throws IllegalArgumentException when none of them says which column holds what
    */
-  ColumnMapping mapping(Path file, CommandSpec spec) throws IOException {
+  ColumnMapping mapping(Path file, CommandSpec spec) throws IOException, IngestException {
+    Ingestor.checkFile(file);
     Map<String, String> options = new LinkedHashMap<>();
     options.put("id", id);
     options.put("question", question);

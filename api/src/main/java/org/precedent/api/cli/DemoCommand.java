@@ -30,15 +30,18 @@ import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Model.OptionSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParentCommand;
 import picocli.CommandLine.Spec;
 
 @Command(name = "demo", mixinStandardHelpOptions = true,
     description = {"Runs the whole job on the bundled demo help desk (invented data).",
-        "Ingests its resolved tickets, builds the index, measures candidate recall, trains,",
-        "evaluates on the held-out tickets, decides sample questions and starts the service.",
-        "Its data directory defaults to ~/.precedent-demo, apart from your own."})
+        "It ingests the demo's resolved tickets, builds the index, measures candidate recall, "
+            + "trains, evaluates on the held-out tickets, decides sample questions and starts the "
+            + "service.",
+        "Its data directory is ~/.precedent-demo, apart from your own, unless --data names "
+            + "another."})
 final class DemoCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -116,6 +119,8 @@ final class DemoCommand implements Callable<Integer> {
 
     Files.copy(dir.resolve("safety.rules"), data.resolve("safety.rules"),
         java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+    out.flush();
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
       TeamModelTrainer trainer = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
           .withEpochs(epochs, RerankerConfig.defaults().patience())
@@ -165,6 +170,17 @@ final class DemoCommand implements Callable<Integer> {
     out.printf(Locale.ROOT, "%n[6] starting the service on the demo model%n");
     out.flush();
     return ServeCommand.serve(out, spec.commandLine().getErr(), data, port, List.of());
+  }
+
+  /**
+   * Describes the inherited --data option as the demo uses it: the demo never falls back on
+   * $PRECEDENT_DATA or ~/.precedent, where a team's own data may be.
+   */
+  static void describeDataOption(CommandSpec demo) {
+    OptionSpec inherited = demo.findOption("--data");
+    demo.remove(inherited);
+    demo.addOption(OptionSpec.builder(inherited)
+        .description("The demo's data directory (default: ~/.precedent-demo).").build());
   }
 
   private static Path defaultDemoData() {

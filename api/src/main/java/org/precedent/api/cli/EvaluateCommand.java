@@ -40,11 +40,12 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "evaluate", mixinStandardHelpOptions = true,
     description = {"Measures the model on held-out tickets and recommends a threshold.",
-        "BM25 alone, the reranker alone and the fused system side by side on held-out resolved",
-        "tickets (never ingested); the recommended threshold is the lowest one whose",
-        "automatic replies reach the target precision with 95% confidence.",
-        "The right answer of each held-out ticket is its label (if a label column is mapped) or",
-        "the answer group its reply reuses; a ticket whose reply reuses none is out of scope.",
+        // picocli formats descriptions: a percent sign is written %%.
+        "It compares BM25 alone, the reranker alone and the fused system side by side on held-out "
+            + "resolved tickets (never ingested). The recommended threshold is the lowest one whose "
+            + "automatic replies reach the target precision with 95%% confidence.",
+        "The right answer of each held-out ticket is its label (if a label column is mapped) or "
+            + "the answer group its reply reuses; a ticket whose reply reuses none is out of scope.",
         "Writes a JSON and an HTML report."})
 final class EvaluateCommand implements Callable<Integer> {
   @ParentCommand
@@ -79,13 +80,15 @@ final class EvaluateCommand implements Callable<Integer> {
     PrintWriter w = spec.commandLine().getOut();
     DataDir dataDir = new DataDir(parent.dataDir());
     EvaluationReport previous = compareTo == null ? null : ReportFiles.readJson(compareTo);
+    // The file is read before the model is opened: a wrong file name is said at once.
+    Ingestor.ParsedExport parsed = new Ingestor(dataDir, TextCleaner.standard(),
+        AnswerGrouper.standard())
+        .parse(file, ExportFormat.of(file), columns.mapping(file, spec), Progress.silent());
+    for (var p : parsed.problems()) {
+      spec.commandLine().getErr().println("skipped: " + p);
+    }
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (ActiveModel active = ActiveModel.open(dataDir)) {
-      AnswerGrouper grouper = AnswerGrouper.standard();
-      Ingestor.ParsedExport parsed = new Ingestor(dataDir, TextCleaner.standard(), grouper)
-          .parse(file, ExportFormat.of(file), columns.mapping(file, spec), Progress.silent());
-      for (var p : parsed.problems()) {
-        spec.commandLine().getErr().println("skipped: " + p);
-      }
       Evaluation result = evaluate(active, parsed, file.getFileName().toString(), target,
           out != null ? out : dataDir.root().resolve("reports"), previous);
       print(w, result);

@@ -24,11 +24,14 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "ingest", mixinStandardHelpOptions = true,
     description = {"Stores resolved tickets from a CSV (RFC 4180, UTF-8) or JSON Lines export.",
-        "Tickets are cleaned and redacted first; a ticket id seen before is updated, not duplicated.",
-        "Which column holds what comes from --mapping FILE (key=column lines; keys: id, question,",
-        "subject, body, reply, label, category, created), from the column options, or from a",
-        "mapping.properties file beside the export.",
-        "Exit status: 0 all rows stored, 3 some rows rejected (the others stored), 1 nothing stored."})
+        "Tickets are cleaned and redacted first. A ticket id stored before is updated, not "
+            + "duplicated; within one file, a row that repeats the id of an earlier row is rejected "
+            + "and the earlier row kept.",
+        "Which column holds what comes from --mapping FILE (lines key=column, with the keys id, "
+            + "question, subject, body, reply, label, category, created), from the column options, "
+            + "or from a mapping.properties beside the export.",
+        "Exit status: 0 when every row is stored, 3 when some rows are rejected (the others are "
+            + "stored), 1 when nothing is stored."})
 final class IngestCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -40,7 +43,8 @@ final class IngestCommand implements Callable<Integer> {
   Path file;
 
   @Option(names = "--format", paramLabel = "csv|jsonl",
-      description = "File format. Default: from the file name (.jsonl/.ndjson/.json: JSON Lines).")
+      description = "File format. Default: from the file name, JSON Lines for the endings "
+          + "jsonl, ndjson and json.")
   String format;
 
   @Mixin
@@ -57,21 +61,18 @@ final class IngestCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     PrintWriter err = spec.commandLine().getErr();
-    ColumnMapping mapping;
+    IngestReport report;
     try {
-      mapping = columns.mapping(file, spec);
+      ColumnMapping mapping = columns.mapping(file, spec);
+      ExportFormat exportFormat = format == null ? ExportFormat.of(file)
+          : ExportFormat.valueOf(format.toUpperCase(Locale.ROOT));
+      Ingestor ingestor = new Ingestor(new DataDir(parent.dataDir()), TextCleaner.standard(),
+          AnswerGrouper.standard());
+      report = ingestor.ingest(file, exportFormat, mapping,
+          progress("reading " + file.getFileName(), "rows"), progress("indexing", "tickets"));
     } catch (IllegalArgumentException e) {
       err.println("precedent ingest: " + e.getMessage());
       return PrecedentCommand.FAILED;
-    }
-    ExportFormat exportFormat = format == null ? ExportFormat.of(file)
-        : ExportFormat.valueOf(format.toUpperCase(Locale.ROOT));
-    Ingestor ingestor = new Ingestor(new DataDir(parent.dataDir()), TextCleaner.standard(),
-        AnswerGrouper.standard());
-    IngestReport report;
-    try {
-      report = ingestor.ingest(file, exportFormat, mapping,
-          progress("reading " + file.getFileName(), "rows"), progress("indexing", "tickets"));
     } catch (IngestException e) {
       err.println("precedent ingest: " + e.getMessage());
       err.println("nothing was stored; the data directory is as it was.");

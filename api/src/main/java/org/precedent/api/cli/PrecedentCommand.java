@@ -18,10 +18,12 @@ public final class PrecedentCommand {
   static final int ROWS_REJECTED = 3;
   /** Exit status when the command could not do its job at all. */
   static final int FAILED = 1;
+  /** Columns of help text: a classic terminal's width. */
+  static final int HELP_WIDTH = 80;
 
   @Option(names = "--data", paramLabel = "DIR", scope = ScopeType.INHERIT,
-      description = "Where Precedent keeps its state (tickets, index, models). "
-          + "Default: $PRECEDENT_DATA, else ~/.precedent")
+      description = "Data directory: tickets, index, models. Default: $PRECEDENT_DATA, else "
+          + "~/.precedent")
   Path data;
 
   Path dataDir() {
@@ -34,7 +36,11 @@ public final class PrecedentCommand {
   }
 
   public static void main(String[] args) {
-    System.exit(run(args));
+    // Precedent's own output goes to the real standard output; libraries print through a filter.
+    java.io.PrintStream stdout = System.out;
+    System.setOut(new java.io.PrintStream(new LibraryChatter(stdout), true));
+    System.exit(run(new java.io.PrintWriter(stdout, true), new java.io.PrintWriter(System.err, true),
+        args));
   }
 
   /** Runs the command line and returns its exit status, without exiting. */
@@ -46,6 +52,10 @@ public final class PrecedentCommand {
   /** Runs the command line writing to {@code out} and {@code err}; returns the exit status. */
   public static int run(java.io.PrintWriter out, java.io.PrintWriter err, String... args) {
     CommandLine cli = new CommandLine(new PrecedentCommand());
+    // One width everywhere, so that help wraps the same in every terminal, pipe and test.
+    cli.setUsageHelpAutoWidth(false);
+    cli.setUsageHelpWidth(HELP_WIDTH);
+    DemoCommand.describeDataOption(cli.getSubcommands().get("demo").getCommandSpec());
     cli.setOut(out);
     cli.setErr(err);
     cli.setExecutionExceptionHandler((e, line, parsed) -> {

@@ -26,8 +26,9 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 @Command(name = "retrieval", mixinStandardHelpOptions = true,
-    description = {"Generates demo-style tickets, ingests them into a scratch data directory, and",
-        "reports ingest throughput (tickets/s) and BM25 candidate latency (p50, p99)."})
+    description = {"Measures ingest throughput and BM25 latency on generated tickets.",
+        "It generates demo-style tickets, ingests them into a scratch data directory, and reports "
+            + "ingest throughput (tickets/s) and BM25 candidate latency (p50, p99)."})
 final class RetrievalBenchmark implements Callable<Integer> {
   @Spec
   CommandSpec spec;

@@ -20,10 +20,11 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "serve", mixinStandardHelpOptions = true,
     description = {"Runs the HTTP service and its pages on the active model.",
-        "Suggestions, decisions, the ticket queue, feedback, thresholds and model versions (JSON",
-        "under /api/v1,",
-        "OpenAPI at /api/v1/openapi). Stop it with Ctrl-C; queued tickets are kept.",
-        "Further settings as --name=value after the options (see application.properties)."})
+        "It serves suggestions, decisions, the ticket queue, feedback, thresholds and model "
+            + "versions as JSON under /api/v1, described in OpenAPI at /api/v1/openapi. Stop it "
+            + "with Ctrl-C; queued tickets are kept.",
+        "Further settings go after the options as --name=value; application.properties lists "
+            + "them."})
 final class ServeCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -62,6 +63,7 @@ final class ServeCommand implements Callable<Integer> {
   static int serve(PrintWriter out, PrintWriter err, java.nio.file.Path data, int port,
       List<String> settings) throws InterruptedException, java.io.IOException {
     ConfigurableApplicationContext context;
+    NumericLibrary.announce(err);
     try {
       context = PrecedentServer.start(data, port, settings);
     } catch (ServiceStartException e) {

@@ -29,9 +29,11 @@ import picocli.CommandLine.ParentCommand;
 import picocli.CommandLine.Spec;
 
 @Command(name = "service", mixinStandardHelpOptions = true,
-    description = {"Starts the service on the data directory's active model (loopback, a free port)",
-        "and drives N concurrent clients against the decision endpoint for a bounded time; reports",
-        "throughput, latency p50/p99 and errors. Questions are generated demo-style tickets."})
+    description = {"Measures the service's decision throughput and latency under load.",
+        "It starts the service on the data directory's active model (loopback, a free port) and "
+            + "drives N concurrent clients against the decision endpoint for a bounded time, then "
+            + "reports throughput, latency p50/p99 and errors. Questions are generated demo-style "
+            + "tickets."})
 final class ServiceBenchmark implements Callable<Integer> {
   private static final String KEY = "bench-agent-key";
 
@@ -54,6 +56,7 @@ final class ServiceBenchmark implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     // The data directory of --data: one with a trained model, such as the demo's.
     Path data = benchmark.parent.dataDir();
+    NumericLibrary.announce(spec.commandLine().getErr());
     ConfigurableApplicationContext context = PrecedentServer.start(data, 0,
         List.of("--precedent.security.keys=bench:" + KEY + ":agent"));
     try {

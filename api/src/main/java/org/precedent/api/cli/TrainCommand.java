@@ -17,9 +17,9 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "train", mixinStandardHelpOptions = true,
     description = {"Trains the model on the stored tickets.",
-        "The reranker learns from most tickets; fusion and calibration are fitted on tickets kept",
-        "apart; the result becomes the active model version.",
-        "Checkpoints are written as it goes; --resume continues an interrupted run."})
+        "The reranker learns from most tickets; fusion and calibration are fitted on tickets kept "
+            + "apart; the result becomes the active model version. Checkpoints are written as it "
+            + "goes; --resume continues an interrupted run."})
 final class TrainCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -69,6 +69,7 @@ final class TrainCommand implements Callable<Integer> {
         .withEpochs(epochs, RerankerConfig.defaults().patience())
         .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
         .withLearningRate(learningRate);
+    NumericLibrary.announce(spec.commandLine().getErr());
     try (Knowledge knowledge = opened.get()) {
       TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
       out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),

@@ -25,10 +25,10 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "triage", mixinStandardHelpOptions = true,
     description = {"Decides a file of new tickets, resumably.",
-        "Input: CSV or JSON Lines, the same column options as",
-        "ingest; no reply column needed) and writes one JSON line per ticket: reply or hand-off,",
-        "with reason, confidence, caution and explanation. Interrupted, it resumes where it",
-        "stopped when run again with the same --in and --out."})
+        "It reads CSV or JSON Lines with the same column options as ingest (no reply column "
+            + "needed) and writes one JSON line per ticket: reply or hand-off, with reason, "
+            + "confidence, caution and explanation.",
+        "Interrupted, it resumes where it stopped when run again with the same --in and --out."})
 final class TriageCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -44,7 +44,8 @@ final class TriageCommand implements Callable<Integer> {
   Path output;
 
   @Option(names = "--format", paramLabel = "csv|jsonl",
-      description = "Input format. Default: from the file name (.jsonl/.ndjson/.json: JSON Lines).")
+      description = "Input format. Default: from the file name, JSON Lines for the endings "
+          + "jsonl, ndjson and json.")
   String format;
 
   @Option(names = "--commit-every", paramLabel = "N", defaultValue = "50",
@@ -65,6 +66,7 @@ final class TriageCommand implements Callable<Integer> {
       err.println("precedent triage: " + e.getMessage());
       return PrecedentCommand.FAILED;
     }
+    NumericLibrary.announce(err);
     try (ActiveModel active = ActiveModel.open(new DataDir(parent.dataDir()))) {
       TriageRun.Result r = new TriageRun(active.advisor(), active.version(), commitEvery)
           .run(tickets, Files.size(in), output);

@@ -21,9 +21,16 @@ public final class ChildJvm implements AutoCloseable {
 
   /** Starts {@code precedent ARGS...} on the test class path; output goes to a log file. */
   public static ChildJvm start(Path log, String... args) throws IOException {
+    return start(log, List.of(), args);
+  }
+
+  /** As {@link #start(Path, String...)}, with options for the JVM (such as -Dname=value). */
+  public static ChildJvm start(Path log, List<String> jvmOptions, String... args)
+      throws IOException {
     List<String> command = new ArrayList<>();
     command.add(Path.of(System.getProperty("java.home"), "bin", "java").toString());
     command.add("-Xmx1g");
+    command.addAll(jvmOptions);
     command.add("-cp");
     command.add(System.getProperty("java.class.path"));
     command.add("org.precedent.api.cli.PrecedentCommand");

@@ -7,6 +7,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Set;
 import org.precedent.engine.decide.CandidateScoring;
 import org.precedent.engine.decide.FusionModel;
 import org.precedent.engine.decide.ScoringSystem;
@@ -22,6 +23,9 @@ import org.precedent.knowledge.retrieve.Retriever;
  * (one-offs, out of scope) have no right candidate, so the fit learns to be unsure of them.
  */
 public final class FusionFit {
+  /** Validation figures that count questions rather than measure them: printed as integers. */
+  private static final Set<String> COUNTS = Set.of("questions");
+
   private final FusionModel model;
 
   private FusionFit(FusionModel model) {
@@ -61,7 +65,9 @@ public final class FusionFit {
     StringBuilder s = new StringBuilder("fusion split, out of fold:");
     model.validation().forEach((system, figures) -> {
       s.append(String.format(Locale.ROOT, "%n  %-8s", system));
-      figures.forEach((k, v) -> s.append(String.format(Locale.ROOT, "  %s %.3f", k, v)));
+      figures.forEach((k, v) -> s.append(COUNTS.contains(k)
+          ? String.format(Locale.ROOT, "  %s %,d", k, Math.round(v))
+          : String.format(Locale.ROOT, "  %s %.3f", k, v)));
     });
     SystemModel fused = model.system(ScoringSystem.FUSED);
     s.append("\nfused weights (original units):");

@@ -6,19 +6,18 @@ import java.io.BufferedReader;
 import java.io.FilterInputStream;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.io.UncheckedIOException;
-import java.nio.charset.CharacterCodingException;
-import java.nio.charset.CodingErrorAction;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
+import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.function.Consumer;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.apache.commons.csv.CSVFormat;
 import org.apache.commons.csv.CSVParser;
 import org.apache.commons.csv.CSVRecord;
@@ -26,15 +25,22 @@ import org.apache.commons.csv.CSVRecord;
 /**
  * Reads the records of one export file, checking first that it is a non-empty UTF-8 text file.
  *
- * <p>Decoding is strict: a byte sequence that is not UTF-8 stops the read with the line it is on,
- * because guessing another encoding would silently store garbled text.
+ * <p>Decoding is strict, row by row: a record whose mapped fields hold bytes that are not UTF-8 is
+ * reported with the line, field and byte offset, and the other records are read as usual, because
+ * guessing another encoding would silently store garbled text. When most records are like that,
+ * the file is in another encoding and is refused as a whole.
  */
 final class ExportReader {
   private static final int SNIFF_BYTES = 8192;
   private static final ObjectMapper JSON = new ObjectMapper();
+  private static final Pattern QUOTE_START = Pattern.compile("\\(startline ([0-9,]+)\\)");
+  private static final Pattern AFTER_QUOTE = Pattern.compile("at line: ([0-9,]+)");
 
   private final Path file;
   private final ExportFormat format;
+  private long records;
+  private long notUtf8;
+  private Utf8Scan.Invalid firstNotUtf8;
 
   ExportReader(Path file, ExportFormat format) {
     this.file = file;
@@ -72,7 +78,8 @@ final class ExportReader {
    * Reads every record, passing each to {@code sink}, and the fraction of the file read so far to
    * {@code progress} after each record.
    *
-   * @param requiredColumns columns that must be present in the header (CSV) or in each record (JSON)
+   * @param requiredColumns columns that must be present in the header (CSV); for both formats,
+   *                        the columns whose bytes must be UTF-8 for a record to be read
    */
   void read(Set<String> requiredColumns, Consumer<SourceRow> sink, Consumer<Double> progress)
       throws IngestException {
@@ -84,42 +91,55 @@ final class ExportReader {
     }
     long[] line = {1};
     try (CountingStream counted = new CountingStream(Files.newInputStream(file));
-        BufferedReader reader = new BufferedReader(new InputStreamReader(counted,
-            StandardCharsets.UTF_8.newDecoder()
-                .onMalformedInput(CodingErrorAction.REPORT)
-                .onUnmappableCharacter(CodingErrorAction.REPORT)))) {
+        Utf8Scan scan = new Utf8Scan(counted);
+        BufferedReader reader = new BufferedReader(scan)) {
       skipByteOrderMark(reader);
       Runnable tick = () -> progress.accept(Math.min(1.0, counted.count / (double) size));
       if (format == ExportFormat.CSV) {
-        readCsv(reader, requiredColumns, sink, tick, line);
+        readCsv(reader, scan, requiredColumns, sink, tick, line);
       } else {
-        readJsonLines(reader, sink, tick, line);
+        readJsonLines(reader, scan, requiredColumns, sink, tick, line);
       }
-    } catch (CharacterCodingException e) {
-      throw notUtf8();
     } catch (UncheckedIOException e) {
-      if (e.getCause() instanceof CharacterCodingException) {
-        throw notUtf8();
-      }
-      throw new IngestException(file + ": near line " + line[0] + ": " + oneLine(e.getCause()), e);
+      throw new IngestException(file + ": " + csvProblem(e.getCause(), line[0]), e);
     } catch (IOException e) {
-      throw new IngestException(file + ": near line " + line[0] + ": " + oneLine(e), e);
+      throw new IngestException(file + ": " + csvProblem(e, line[0]), e);
     } catch (IllegalStateException | IllegalArgumentException e) {
-      // commons-csv reports malformed quoting and duplicate headers this way.
+      // commons-csv reports duplicate header names this way.
       throw new IngestException(file + ": near line " + line[0] + ": " + oneLine(e), e);
+    }
+    // Most records broken means the file is in another encoding, not that a few rows are damaged.
+    if (notUtf8 > 0 && notUtf8 * 2 > records) {
+      throw new IngestException(String.format(Locale.ROOT, "%s: %,d of %,d rows are not valid UTF-8 "
+          + "text (the first on line %d: %s): the file is in another encoding; export it as "
+          + "UTF-8 (other encodings are not guessed)", file, notUtf8, records,
+          firstNotUtf8.line(), firstNotUtf8));
     }
   }
 
-  /** The decoder reads ahead, so the place of the bad bytes is found by a second, exact pass. */
-  private IngestException notUtf8() {
-    long[] at = Utf8Scan.firstInvalid(file);
-    String where = at == null ? "" : ": line " + at[0] + " (byte " + at[1] + ")";
-    return new IngestException(file + where
-        + ": not valid UTF-8 text (export the file as UTF-8; other encodings are not guessed)");
+  /** A parse error of commons-csv, in plain words and with the line where the trouble began. */
+  private static String csvProblem(IOException e, long near) {
+    String message = oneLine(e);
+    Matcher opened = QUOTE_START.matcher(message);
+    if (message.contains("EOF reached before encapsulated token finished") && opened.find()) {
+      return "line " + number(opened.group(1)) + ": a quoted field opened here is never closed "
+          + "(a closing \" is missing, so the rest of the file would be read as this one field)";
+    }
+    Matcher after = AFTER_QUOTE.matcher(message);
+    if (message.startsWith("Invalid character between encapsulated token and delimiter")
+        && after.find()) {
+      return "line " + number(after.group(1)) + ": a quoted field is closed and then goes on "
+          + "before the next comma (inside a quoted field, write a \" as \"\")";
+    }
+    return "near line " + near + ": " + message;
   }
 
-  private void readCsv(BufferedReader reader, Set<String> required, Consumer<SourceRow> sink,
-      Runnable tick, long[] line) throws IOException, IngestException {
+  private static long number(String grouped) {
+    return Long.parseLong(grouped.replace(",", ""));
+  }
+
+  private void readCsv(BufferedReader reader, Utf8Scan scan, Set<String> required,
+      Consumer<SourceRow> sink, Runnable tick, long[] line) throws IOException, IngestException {
     CSVFormat csv = CSVFormat.RFC4180.builder()
         .setHeader()
         .setSkipHeaderRecord(true)
@@ -127,6 +147,11 @@ final class ExportReader {
         .setAllowMissingColumnNames(true)
         .get();
     try (CSVParser parser = CSVParser.builder().setReader(reader).setFormat(csv).get()) {
+      Utf8Scan.Invalid inHeader = scan.takeBefore(parser.getCurrentLineNumber() + 1);
+      if (inHeader != null) {
+        throw new IngestException(file + ": line " + inHeader.line() + ": the header row is not "
+            + "valid UTF-8 text (" + inHeader + "); export the file as UTF-8");
+      }
       Set<String> header = new LinkedHashSet<>(parser.getHeaderNames());
       if (header.isEmpty()) {
         throw new IngestException(file + ": line 1: no header row");
@@ -137,72 +162,111 @@ final class ExportReader {
         throw new IngestException(file + ": line 1: the header lacks mapped column(s) "
             + String.join(", ", missing) + "; it has: " + String.join(", ", header));
       }
-      Iterator<CSVRecord> records = parser.iterator();
+      Iterator<CSVRecord> iterator = parser.iterator();
+      CSVRecord pending = null;
+      long pendingStart = 0;
+      // A record is passed on once the next one is parsed: only then are the lines it spans known.
       while (true) {
         line[0] = parser.getCurrentLineNumber() + 1;
-        if (!records.hasNext()) {
+        boolean more = iterator.hasNext();
+        if (pending != null) {
+          Utf8Scan.Invalid bad = scan.takeBefore(more ? line[0] : Long.MAX_VALUE);
+          sink.accept(csvRow(pending, pendingStart, header, required, bad));
+          tick.run();
+        }
+        if (!more) {
           break;
         }
-        CSVRecord record = records.next();
-        long start = line[0];
-        Map<String, String> values = new LinkedHashMap<>();
-        if (!record.isConsistent()) {
-          sink.accept(SourceRow.unreadable(start, "has " + record.size() + " fields, the header has "
-              + header.size()));
-          tick.run();
-          continue;
-        }
-        for (String column : header) {
-          values.put(column, record.get(column));
-        }
-        sink.accept(SourceRow.parsed(start, values));
-        tick.run();
+        pending = iterator.next();
+        pendingStart = line[0];
       }
     }
   }
 
+  private SourceRow csvRow(CSVRecord record, long start, Set<String> header, Set<String> required,
+      Utf8Scan.Invalid bad) {
+    records++;
+    if (!record.isConsistent()) {
+      return SourceRow.unreadable(start, "has " + record.size() + " fields, the header has "
+          + header.size());
+    }
+    Map<String, String> values = new LinkedHashMap<>();
+    for (String column : header) {
+      values.put(column, record.get(column));
+    }
+    SourceRow notUtf8 = notUtf8(start, values, required, bad);
+    return notUtf8 != null ? notUtf8 : SourceRow.parsed(start, values);
+  }
+
+  /**
+   * The problem of a record whose mapped fields hold bytes that are not UTF-8, or null. A bad byte
+   * in a column that is not mapped does not matter: nothing of that column is stored.
+   */
+  private SourceRow notUtf8(long start, Map<String, String> values, Set<String> required,
+      Utf8Scan.Invalid bad) {
+    if (bad == null) {
+      return null;
+    }
+    for (Map.Entry<String, String> v : values.entrySet()) {
+      if (required.contains(v.getKey()) && v.getValue().indexOf(Utf8Scan.REPLACEMENT) >= 0) {
+        return notUtf8(start, v.getKey(), bad);
+      }
+    }
+    return null;
+  }
+
+  private SourceRow notUtf8(long start, String field, Utf8Scan.Invalid bad) {
+    notUtf8++;
+    if (firstNotUtf8 == null) {
+      firstNotUtf8 = bad;
+    }
+    return SourceRow.unreadable(start, field, "not valid UTF-8 text: " + bad
+        + (bad.line() == start ? "" : " (line " + bad.line() + ")") + "; export the file as UTF-8");
+  }
+
   /** JSON Lines records may leave out keys (as JSON leaves out nulls): a missing key is empty. */
-  private void readJsonLines(BufferedReader reader, Consumer<SourceRow> sink, Runnable tick,
-      long[] line) throws IOException {
+  private void readJsonLines(BufferedReader reader, Utf8Scan scan, Set<String> required,
+      Consumer<SourceRow> sink, Runnable tick, long[] line) throws IOException {
     String text;
     line[0] = 0;
     while ((text = reader.readLine()) != null) {
       line[0]++;
+      Utf8Scan.Invalid bad = scan.takeBefore(line[0] + 1);
       if (text.isBlank()) {
         continue;
       }
-      JsonNode node;
-      try {
-        node = JSON.readTree(text);
-      } catch (IOException e) {
-        sink.accept(SourceRow.unreadable(line[0], "not a JSON object: " + oneLine(e)));
-        tick.run();
-        continue;
-      }
-      if (node == null || !node.isObject()) {
-        sink.accept(SourceRow.unreadable(line[0], "not a JSON object"));
-        tick.run();
-        continue;
-      }
-      Map<String, String> values = new LinkedHashMap<>();
-      String problem = null;
-      for (var it = node.fields(); it.hasNext(); ) {
-        var field = it.next();
-        JsonNode value = field.getValue();
-        if (value.isNull()) {
-          continue;
-        }
-        if (value.isContainerNode()) {
-          problem = "field " + field.getKey() + ": expected text, found a JSON "
-              + (value.isArray() ? "array" : "object");
-          break;
-        }
-        values.put(field.getKey(), value.asText());
-      }
-      sink.accept(problem == null ? SourceRow.parsed(line[0], values)
-          : SourceRow.unreadable(line[0], problem));
+      records++;
+      sink.accept(jsonRow(text, line[0], required, bad));
       tick.run();
     }
+  }
+
+  private SourceRow jsonRow(String text, long line, Set<String> required, Utf8Scan.Invalid bad) {
+    JsonNode node;
+    try {
+      node = JSON.readTree(text);
+    } catch (IOException e) {
+      return bad != null ? notUtf8(line, null, bad)
+          : SourceRow.unreadable(line, "not a JSON object: " + oneLine(e));
+    }
+    if (node == null || !node.isObject()) {
+      return SourceRow.unreadable(line, "not a JSON object");
+    }
+    Map<String, String> values = new LinkedHashMap<>();
+    for (var it = node.fields(); it.hasNext(); ) {
+      var field = it.next();
+      JsonNode value = field.getValue();
+      if (value.isNull()) {
+        continue;
+      }
+      if (value.isContainerNode()) {
+        return SourceRow.unreadable(line, "field " + field.getKey() + ": expected text, found a JSON "
+            + (value.isArray() ? "array" : "object"));
+      }
+      values.put(field.getKey(), value.asText());
+    }
+    SourceRow notUtf8 = notUtf8(line, values, required, bad);
+    return notUtf8 != null ? notUtf8 : SourceRow.parsed(line, values);
   }
 
   private static void skipByteOrderMark(BufferedReader reader) throws IOException {

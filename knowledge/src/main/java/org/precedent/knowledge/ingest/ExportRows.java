@@ -33,7 +33,9 @@ public final class ExportRows {
     ExportReader reader = new ExportReader(file, format);
     reader.checkFile();
     List<Row> rows = new ArrayList<>();
-    reader.read(requiredColumns, r -> rows.add(new Row(r.line(), r.values(), r.error())), s -> { });
+    reader.read(requiredColumns, r -> rows.add(new Row(r.line(), r.values(),
+        r.error() == null || r.field() == null ? r.error() : "field " + r.field() + ": " + r.error())),
+        s -> { });
     return rows;
   }
 }

@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.nio.channels.FileLock;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
@@ -22,8 +23,10 @@ import org.precedent.knowledge.ticket.Ticket;
  * Ingests an export of resolved tickets: read, validate, clean, merge with what is stored (same id
  * replaces), regroup, re-index, and put the new knowledge in force in one atomic step.
  *
- * <p>A bad row is reported and skipped; a bad file (missing, empty, not UTF-8 text, lacking a mapped
- * column) stops the ingest before anything changes.
+ * <p>A bad row is reported and skipped; a bad file (missing, empty, not text, mostly not UTF-8,
+ * lacking a mapped column, a quote never closed) stops the ingest before anything changes. Within
+ * one file an id belongs to one row: a later row with the id of an earlier one is rejected and
+ * the earlier one kept, since an export that repeats an id is more likely wrong than a history.
  */
 public final class Ingestor {
   private final DataDir dataDir;
@@ -37,9 +40,18 @@ public final class Ingestor {
   }
 
   /**
+   * Checks that {@code file} exists and looks like a text export, before anything else is asked
+   * of the user (such as which column holds what).
+   */
+  public static void checkFile(Path file) throws IngestException {
+    new ExportReader(file, ExportFormat.of(file)).checkFile();
+  }
+
+  /**
    * Reads and validates {@code file} without storing anything.
    *
-   * @return the valid tickets, in file order (a later row with the same id replaces an earlier one)
+   * @return the valid tickets, in file order (the first valid row of an id; later rows with that
+   *     id are rejected as problems)
    */
   public ParsedExport parse(Path file, ExportFormat format, ColumnMapping mapping, Progress progress)
       throws IngestException {
@@ -47,7 +59,8 @@ public final class Ingestor {
     reader.checkFile();
     RowValidator validator = new RowValidator(file.toString(), file.getFileName().toString(),
         mapping, cleaner);
-    Map<String, Ticket> tickets = new LinkedHashMap<>();
+    List<Ticket> tickets = new ArrayList<>();
+    Map<String, Long> lineOfId = new HashMap<>();
     List<RowProblem> problems = new ArrayList<>();
     long[] read = {0};
     long[] rejected = {0};
@@ -55,17 +68,20 @@ public final class Ingestor {
     reader.read(new LinkedHashSet<>(mapping.mapped().values()), row -> {
       read[0]++;
       Ticket t = validator.validate(row, problems);
-      if (t != null) {
-        tickets.remove(t.id());
-        tickets.put(t.id(), t);
+      Long first = t == null ? null : lineOfId.putIfAbsent(t.id(), row.line());
+      if (t != null && first == null) {
+        tickets.add(t);
       } else {
+        if (first != null) {
+          problems.add(new RowProblem(file.toString(), row.line(), "id", "'" + t.id()
+              + "' is already the id of line " + first + ", which is kept; this row is not stored"));
+        }
         rejected[0]++;
       }
       progress.update(read[0], share[0]);
     }, s -> share[0] = s);
     progress.finish(read[0]);
-    return new ParsedExport(file.toString(), read[0], rejected[0], List.copyOf(tickets.values()),
-        problems);
+    return new ParsedExport(file.toString(), read[0], rejected[0], tickets, problems);
   }
 
   /** Parses {@code file} and stores its valid tickets. */
@@ -93,7 +109,7 @@ public final class Ingestor {
           stored++;
         }
       }
-      // Rows that replaced a stored ticket, or an earlier row of the same file, are updates.
+      // Tickets that replaced a stored ticket are updates.
       long updated = parsed.read() - parsed.rejected() - stored;
       sources.add(parsed.file());
       List<Ticket> tickets = List.copyOf(all.values());
@@ -117,7 +133,7 @@ public final class Ingestor {
    * @param file     the file read
    * @param read     rows read
    * @param rejected rows rejected
-   * @param tickets  valid tickets, cleaned (one per id: a later row replaces an earlier one)
+   * @param tickets  valid tickets, cleaned, one per id
    * @param problems what is wrong with each rejected row, in file order
    */
   public record ParsedExport(String file, long read, long rejected, List<Ticket> tickets,

@@ -39,7 +39,7 @@ final class RowValidator {
   /** The ticket, or null with {@code problems} filled in. */
   Ticket validate(SourceRow row, List<RowProblem> problems) {
     if (row.error() != null) {
-      problems.add(new RowProblem(file, row.line(), null, row.error()));
+      problems.add(new RowProblem(file, row.line(), row.field(), row.error()));
       return null;
     }
     int before = problems.size();

@@ -160,7 +160,8 @@ class IngestorTest {
     Path latin1 = tmp.resolve("latin1.csv");
     Files.write(latin1, (HEADER + "T-9,Caf\u00e9,\"na\u00efve\",\"" + MISSED + "\",bins,\n")
         .getBytes(StandardCharsets.ISO_8859_1));
-    assertFails(latin1, ": line 2 (byte 54): not valid UTF-8");
+    assertFails(latin1, ": 1 of 1 rows are not valid UTF-8 text (the first on line 2: byte 0xE9 at "
+        + "byte offset 53)");
     assertFails(write("cols.csv", "ticket_id,question,answer\n1,a,b\n"),
         "line 1: the header lacks mapped column(s) subject, body, reply, category, created");
     Path junk = tmp.resolve("junk.csv");
@@ -174,6 +175,135 @@ class IngestorTest {
     try (Knowledge k = Knowledge.open(data).orElseThrow()) {
       assertEquals(6, k.tickets().size());
     }
+  }
+
+  @Test
+  void aRepeatedIdInOneFileRejectsTheLaterRowNamingTheLineOfTheFirst() throws Exception {
+    Path file = write("repeated.csv", HEADER
+        + "T-1,Missed bin,\"My bin was not emptied\",\"" + MISSED + "\",bins,\n"    // line 2
+        + "R-1,Meter,\"How do I send a reading?\",\"" + READING + "\",meters,\n"    // line 3
+        + "T-1,Meter,\"Where do I send a reading?\",\"" + READING + "\",meters,\n"  // line 4
+        + "T-1,Bin,\"bin left full\",\"" + MISSED + "\",bins,\n");                   // line 5
+    IngestReport report = ingest(file);
+    assertEquals(4, report.read());
+    assertEquals(2, report.stored());
+    assertEquals(2, report.rejected());
+    assertEquals(List.of(
+        file + ":4: field id: 'T-1' is already the id of line 2, which is kept; this row is not stored",
+        file + ":5: field id: 'T-1' is already the id of line 2, which is kept; this row is not stored"),
+        report.problems().stream().map(RowProblem::toString).toList());
+    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
+      assertEquals("Missed bin\nMy bin was not emptied", k.tickets().get("T-1").question(),
+          "the first row of the id is the one stored");
+    }
+  }
+
+  @Test
+  void aRepeatedIdAfterARejectedRowKeepsTheFirstValidRow() throws Exception {
+    Path file = write("repeated.csv", HEADER
+        + "T-1,Missed bin,\"My bin was not emptied\",,bins,\n"                         // line 2
+        + "T-1,Missed bin,\"bin left full\",\"" + MISSED + "\",bins,\n");            // line 3
+    IngestReport report = ingest(file);
+    assertEquals(1, report.stored());
+    assertEquals(List.of(file + ":2: field reply: empty"),
+        report.problems().stream().map(RowProblem::toString).toList());
+  }
+
+  /** The offset of the first byte {@code b} at or after {@code from}, found in the bytes written. */
+  private static int indexOf(byte[] bytes, int b, int from) {
+    for (int i = from; i < bytes.length; i++) {
+      if ((bytes[i] & 0xFF) == b) {
+        return i;
+      }
+    }
+    throw new AssertionError("no byte " + b);
+  }
+
+  @Test
+  void bytesThatAreNotUtf8RejectOnlyTheRowsTheyAreIn() throws Exception {
+    for (String end : List.of("\n", "\r\n")) {
+      String header = "ticket_id,subject,body,reply,category,created,notes" + end;
+      String text = header
+          + "T-1,Missed bin,\"not emptied\",\"" + MISSED + "\",bins,,x" + end            // line 2
+          + "T-2,Missed bin,\"caf\u00e9 bin\",\"" + MISSED + "\",bins,,x" + end          // line 3
+          + "R-1,Meter,\"two lines:" + end + "na\u00efve\",\"" + READING + "\",meters,,x" + end // 4-5
+          + "R-2,Meter,\"reading?\",\"" + READING + "\",meters,,x" + end                // line 6
+          + "R-3,Meter,\"reading again\",\"" + READING + "\",meters,,\u00e0 part" + end; // line 7
+      // ISO-8859-1 writes each of \u00e9, \u00ef and \u00e0 as one byte that UTF-8 never allows.
+      byte[] bytes = text.getBytes(StandardCharsets.ISO_8859_1);
+      Path file = tmp.resolve("mixed-" + end.length() + ".csv");
+      Files.write(file, bytes);
+      DataDir fresh = new DataDir(tmp.resolve("data-" + end.length()));
+      IngestReport report = new Ingestor(fresh, TextCleaner.standard(), AnswerGrouper.standard())
+          .ingest(file, ExportFormat.CSV, mapping, Progress.silent(), Progress.silent());
+      int e9 = indexOf(bytes, 0xE9, 0);
+      int ef = indexOf(bytes, 0xEF, 0);
+      assertEquals(List.of(
+          String.format(java.util.Locale.ROOT, "%s:3: field body: not valid UTF-8 text: byte 0xE9 at "
+              + "byte offset %,d; export the file as UTF-8", file, e9),
+          String.format(java.util.Locale.ROOT, "%s:4: field body: not valid UTF-8 text: byte 0xEF at "
+              + "byte offset %,d (line 5); export the file as UTF-8", file, ef)),
+          report.problems().stream().map(RowProblem::toString).toList(), "line ends " + end.length());
+      assertEquals(5, report.read());
+      assertEquals(3, report.stored(), "the other rows go in; a bad byte in an unmapped column is "
+          + "not stored and does not matter");
+      try (Knowledge k = Knowledge.open(fresh).orElseThrow()) {
+        assertEquals(java.util.Set.of("T-1", "R-2", "R-3"), k.tickets().keySet());
+      }
+    }
+  }
+
+  @Test
+  void aJsonLineWithBytesThatAreNotUtf8IsRejectedAlone() throws Exception {
+    String text = """
+        {"ticket_id": "J-1", "subject": "Missed bin", "body": "not emptied", "reply": "%s"}
+        {"ticket_id": "J-2", "subject": "Missed bin", "body": "caf\u00e9", "reply": "%s"}
+        {"ticket_id": "J-3", "subject": "Meter", "body": "reading?", "reply": "%s"}
+        """.formatted(MISSED, MISSED, READING);
+    byte[] bytes = text.getBytes(StandardCharsets.ISO_8859_1);
+    Path file = tmp.resolve("tickets.jsonl");
+    Files.write(file, bytes);
+    IngestReport report = ingest(file);
+    assertEquals(2, report.stored());
+    assertEquals(List.of(file + ":2: field body: not valid UTF-8 text: byte 0xE9 at byte offset "
+        + indexOf(bytes, 0xE9, 0) + "; export the file as UTF-8"),
+        report.problems().stream().map(RowProblem::toString).toList());
+  }
+
+  @Test
+  void aFileMostlyNotUtf8IsRefusedAsAWhole() throws Exception {
+    ingest(write("good.csv", goodCsv()));
+    Path before = data.currentGeneration().orElseThrow();
+    String text = HEADER
+        + "T-1,Caf\u00e9,\"bin\",\"" + MISSED + "\",bins,\n"
+        + "T-2,Missed bin,\"not emptied\",\"" + MISSED + "\",bins,\n"
+        + "T-3,Missed bin,\"na\u00efve\",\"" + MISSED + "\",bins,\n";
+    byte[] bytes = text.getBytes(StandardCharsets.ISO_8859_1);
+    Path file = tmp.resolve("latin1.csv");
+    Files.write(file, bytes);
+    assertFails(file, ": 2 of 3 rows are not valid UTF-8 text (the first on line 2: byte 0xE9 at "
+        + "byte offset " + indexOf(bytes, 0xE9, 0) + "): the file is in another encoding; export it "
+        + "as UTF-8");
+    assertEquals(before, data.currentGeneration().orElseThrow(), "nothing stored");
+  }
+
+  @Test
+  void aQuoteNeverClosedNamesTheLineWhereItOpened() throws Exception {
+    Path file = write("unclosed.csv", HEADER
+        + "T-1,Missed bin,\"two\nlines\",\"" + MISSED + "\",bins,\n"          // lines 2-3
+        + "T-2,Missed bin,\"not emptied,A crew will call.,bins,\n"              // line 4
+        + "T-3,Missed bin,bin left full,A crew will call.,bins,\n");             // line 5
+    assertFails(file, ": line 4: a quoted field opened here is never closed (a closing \" is "
+        + "missing, so the rest of the file would be read as this one field)");
+  }
+
+  @Test
+  void aQuotedFieldThatGoesOnAfterItsClosingQuoteNamesItsLine() throws Exception {
+    Path file = write("quote.csv", HEADER
+        + "T-1,Missed bin,\"two\nlines\",\"" + MISSED + "\",bins,\n"          // lines 2-3
+        + "T-2,Missed bin,\"the \"bin\" was full\",\"" + MISSED + "\",bins,\n");  // line 4
+    assertFails(file, ": line 4: a quoted field is closed and then goes on before the next comma "
+        + "(inside a quoted field, write a \" as \"\")");
   }
 
   @Test
