@@ -84,8 +84,13 @@ public final class Advisor {
 
   private static String explainSafety(SafetyFinding f) {
     return switch (f.kind()) {
-      case TERM -> "The question mentions '" + f.matched() + "' (" + f.topic()
-          + "): this always goes to a person.";
+      case TERM -> f.topics().size() == 1
+          ? "The question mentions '" + f.matched() + "' (" + f.topic()
+              + "): this always goes to a person."
+          // Every matching topic is named, the most specific first, as the caution lists them.
+          : "The question mentions '" + f.matched() + "' (" + f.topic() + "; also "
+              + String.join(", ", f.topics().subList(1, f.topics().size()))
+              + "): this always goes to a person.";
       case HUMAN_ONLY_CATEGORY -> "Category '" + f.matched() + "' is answered by people only.";
       case HUMAN_ONLY_GROUP -> "Answer " + f.matched() + " is marked to be sent by people only.";
     };

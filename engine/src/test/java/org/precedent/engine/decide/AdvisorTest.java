@@ -141,6 +141,21 @@ class AdvisorTest {
   }
 
   @Test
+  void theExplanationNamesEveryMatchingSafetyTopicTheMostSpecificFirst() {
+    // The sewage question also has the smell of bad water in it: the sewage topic leads, and the
+    // water-quality one is named after it, as the caution lists them.
+    Decision d = decide("Sewage coming up through the drain in my garden and it smells awful",
+        null, Thresholds.global(0.0), SafetyPolicy.defaults());
+    assertEquals(HandOffReason.SAFETY_RULE, d.reason());
+    List<String> topics = d.safety().topics();
+    assertTrue(topics.size() >= 2, topics.toString());
+    assertTrue(d.explanation().contains("(" + topics.get(0) + "; also "), d.explanation());
+    for (String topic : topics) {
+      assertTrue(d.explanation().contains(topic), topic + " in " + d.explanation());
+    }
+  }
+
+  @Test
   void humanOnlyCategoriesAndAnswersAreHandedOff(@TempDir Path dir) throws Exception {
     SafetyPolicy policy = SafetyPolicy.load(Files.writeString(dir.resolve("team.rules"),
         "human-only-category = complaint\n"));
