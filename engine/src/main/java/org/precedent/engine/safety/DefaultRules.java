@@ -10,6 +10,14 @@ import java.util.List;
  * situation, not a lone word, because single words are shared with routine questions: "brown" is also the garden
  * waste bin, "court" is also a street name, "sewerage" is also a line on the bill, "leak" is also a dripping cistern.
  * A rule may fire on a routine question now and then; a missed emergency costs far more than a needless hand-off.
+ *
+ * <p>Runs of filler words ("is very really ...") take at most eight words and are possessive ({@code {0,8}+}), so that
+ * a hostile question costs time linear in its length and a constant stack. Unbounded, a run that holds the rule's own
+ * first word ("tastes and tastes and tastes ...") is read again from each of its starts, quadratic in its length; and
+ * java.util.regex recurses once per repetition of a group it may have to give back, so thousands of fillers overflow
+ * the stack, while a possessive repetition is a loop that is never re-split. No filler is a word that can follow its
+ * run, so a possessive run finds everything a greedy one would; "all over" after sewage, whose "all" is also a filler,
+ * is written as "(all )?over" for that reason.
  */
 final class DefaultRules {
 
@@ -26,9 +34,9 @@ final class DefaultRules {
   private static final String WATER_VERB = "(?:is|was|are|looks?|looked|looking|has gone|had gone|has been|is going|"
       + "went|gone|turned|turning|coming out|comes out|came out|running|runs|ran)";
   private static final String DEGREE =
-      "(?:(?:all|very|really|quite|a bit|a|slightly|light|dark|pale|deep|bright|completely) )*";
+      "(?:(?:all|very|really|quite|a bit|a|slightly|light|dark|pale|deep|bright|completely) ){0,8}+";
   private static final String SEWAGE = "(?:(?:raw|untreated) )?(?:sew(?:er)?age|foul water)";
-  private static final String ROOM = "(?:(?:my|the|our|their|back|front|rear|downstairs|upstairs) )*(?:house|home|"
+  private static final String ROOM = "(?:(?:my|the|our|their|back|front|rear|downstairs|upstairs) ){0,8}+(?:house|home|"
       + "garden|kitchen|cellar|basement|bathroom|yard|street|road|drive|driveway|toilet|bath|shower|sink|property|"
       + "hall|hallway|living room|lounge|flat|patio|lawn)";
   private static final String PUBLIC_WAY = "(?:road|roads|street|pavement|footpath|tarmac|junction|carriageway)";
@@ -48,25 +56,25 @@ final class DefaultRules {
           + "(?:grit|sand|sediment|particles) in (?:the|my|our) (?:tap )?water"),
       new Spec("wq-smell-taste", "water-quality", "(?:smells?|smelling|smelt|smelled|stinks?|stinking|stank|"
           + "tastes?|tasting|tasted) (?:(?:strongly|really|very|quite|a bit|a little|slightly|horribly|awful|"
-          + "and tastes|and smells|of|like) )*(?:sewage|sewers?|drains?|chemicals?|petrol|diesel|bleach|oil|"
+          + "and tastes|and smells|of|like) ){0,8}+(?:sewage|sewers?|drains?|chemicals?|petrol|diesel|bleach|oil|"
           + "solvents?|paraffin|kerosene|rotten eggs?|plastic|earth|antiseptic|disinfectant|fuel)|"
           + "(?:strange|chemical|solvent|petrol|diesel|oily|sewage|foul|horrible|disgusting) "
           + "(?:taste|smell|odou?r)s?"),
       new Spec("wq-off-taste", "water-quality", "(?:smells?|smelling|smelt|tastes?|tasting|tasted) "
-          + "(?:(?:really|very|quite|a bit|a little|so|and tastes|and smells) )*(?:off|funny|strange|disgusting|"
+          + "(?:(?:really|very|quite|a bit|a little|so|and tastes|and smells) ){0,8}+(?:off|funny|strange|disgusting|"
           + "horrible|awful|foul|rank|vile|revolting|weird)|"
           + "(?:water|it) " + gap(3) + "(?:smells|stinks)(?! (?:(?:a bit|slightly|a little|faintly) )?"
           + "(?:of|like) (?:a )?(?:swimming pools?|chlorine))"),
       new Spec("wq-contaminated", "water-quality", "(?:water|supply) (?:(?:is|was|has been|might be|may be|"
-          + "could be|must be|got|getting|become|been) )*(?:contaminated|polluted|poisoned|unsafe|not safe)|"
+          + "could be|must be|got|getting|become|been) ){0,8}+(?:contaminated|polluted|poisoned|unsafe|not safe)|"
           + "(?:contaminated|polluted|unsafe) (?:tap |drinking )?water|"
           + "(?:contamination|pollution) (?:of|in) (?:the|my|our) (?:tap |drinking )?water|"
           + "something (?:has )?got into the water"),
 
       // Sewage: flooding from the sewer is a health hazard, inside or out.
-      new Spec("sewage-flooding", "sewage", SEWAGE + " (?:(?:is|was|has|had|keeps|kept|are|were|all|just|now) )*"
+      new Spec("sewage-flooding", "sewage", SEWAGE + " (?:(?:is|was|has|had|keeps|kept|are|were|all|just|now) ){0,8}+"
           + "(?:flood\\w*|coming|came|comes|bubbling|bubbled|pouring|poured|overflowing|overflowed|spilling|"
-          + "spilled|leaking|leaked|backing up|backed up|seeping|rising|everywhere|all over|up through|"
+          + "spilled|leaking|leaked|backing up|backed up|seeping|rising|everywhere|(?:all )?over|up through|"
           + "in it|(?:in|into) " + ROOM + ")|"
           + "(?:flood\\w*|overflowing|filled|full|covered|swimming) (?:with |in )?" + SEWAGE),
 
@@ -74,7 +82,7 @@ final class DefaultRules {
       new Spec("burst-main", "burst-main", "burst (?:water )?mains?|"
           + "(?:burst|broken|leaking) (?:water )?(?:pipe|main) (?:in|on|under) (?:the )?" + PUBLIC_WAY + "|"
           + "(?:pipe|main) (?:has |had )?burst (?:in|on|under) (?:the )?" + PUBLIC_WAY),
-      new Spec("burst-water-in-road", "burst-main", "(?:water|leak) (?:(?:is|was|keeps|has been|just) )*"
+      new Spec("burst-water-in-road", "burst-main", "(?:water|leak) (?:(?:is|was|keeps|has been|just) ){0,8}+"
           + "(?:gushing|pouring|spurting|spraying|bubbling|pumping|fountaining|shooting|streaming|flooding|"
           + "running|coming|welling|rushing|leaking)(?: up| out| down)?"
           + "(?: (?:of|through|from|into|onto|across|along|over|under|in|out of))? " + gap(4) + PUBLIC_WAY + "|"
