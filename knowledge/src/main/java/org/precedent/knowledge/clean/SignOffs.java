@@ -42,13 +42,13 @@ final class SignOffs {
 
   private SignOffs() {}
 
-  /** Strips closings from the end until none is left; true if anything changed. */
-  static boolean strip(List<String> lines, boolean agentReply) {
-    boolean changed = false;
-    while (stripOnce(lines, agentReply)) {
-      changed = true;
+  /** Strips closings from the end until none is left, at most {@code max}; returns how many. */
+  static int strip(List<String> lines, boolean agentReply, int max) {
+    int taken = 0;
+    while (taken < max && stripOnce(lines, agentReply)) {
+      taken++;
     }
-    return changed;
+    return taken;
   }
 
   private static boolean stripOnce(List<String> lines, boolean agentReply) {
