@@ -54,3 +54,8 @@ CREATE TABLE IF NOT EXISTS model_activation (
   new_version VARCHAR(40) NOT NULL,
   reason VARCHAR(2000) NOT NULL
 );
+-- One row, written by the health check to show that the database can still store.
+CREATE TABLE IF NOT EXISTS storage_probe (
+  id INT NOT NULL PRIMARY KEY,
+  probed_at TIMESTAMP WITH TIME ZONE NOT NULL
+);

@@ -10,6 +10,7 @@ import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
 import org.precedent.api.suggest.Decider;
 import org.precedent.api.suggest.DecisionView;
+import org.precedent.api.system.StorageFailures;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.factory.annotation.Value;
@@ -28,6 +29,7 @@ import org.springframework.stereotype.Component;
 @Component
 class QueueWorker implements SmartLifecycle {
   private static final Logger LOG = LoggerFactory.getLogger(QueueWorker.class);
+  private static final long MAX_PAUSE_MS = 5_000;
   private final TicketQueue queue;
   private final Decider decider;
   private final long pollMs;
@@ -75,6 +77,7 @@ class QueueWorker implements SmartLifecycle {
 
   private void run() {
     boolean failing = false;
+    long pause = pollMs;
     while (running) {
       try {
         storeUnfinished();
@@ -82,6 +85,7 @@ class QueueWorker implements SmartLifecycle {
         if (failing) {
           LOG.info("queue worker: the database works again");
           failing = false;
+          pause = pollMs;
         }
         if (claimed.isPresent()) {
           decide(claimed.get());
@@ -95,10 +99,14 @@ class QueueWorker implements SmartLifecycle {
         // The database is unavailable (or worse); claims and unstored outcomes stay and are
         // retried after a pause. The thread must not end here: nothing else would decide tickets.
         if (!failing) {
-          LOG.warn("queue worker: {}; retrying every {} ms", e.toString(), pollMs);
+          LOG.warn("queue worker: {}; trying again in {} ms, then less and less often",
+              StorageFailures.isStorageFailure(e) ? "storage failed: "
+                  + StorageFailures.describe(e) : e.toString(), pollMs);
           failing = true;
         }
-        sleepQuietly();
+        sleepQuietly(pause);
+        // Each try while storage fails opens the database anew; a few a minute are enough.
+        pause = Math.min(2 * pause, Math.max(pollMs, MAX_PAUSE_MS));
       }
     }
   }
@@ -143,9 +151,9 @@ class QueueWorker implements SmartLifecycle {
         : ": " + message.strip().split("\n", 2)[0]);
   }
 
-  private void sleepQuietly() {
+  private void sleepQuietly(long ms) {
     try {
-      Thread.sleep(pollMs);
+      Thread.sleep(ms);
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
       running = false;
