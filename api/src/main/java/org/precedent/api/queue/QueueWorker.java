@@ -125,7 +125,8 @@ class QueueWorker implements SmartLifecycle {
     try {
       queue.decided(c, d);
     } catch (RuntimeException e) {
-      fail(c, "its decision could not be stored: " + describe(e));
+      fail(c, "its decision could not be stored: " + (StorageFailures.isStorageFailure(e)
+          ? StorageFailures.describe(e) : describe(e)));
     }
   }
 
@@ -151,9 +152,11 @@ class QueueWorker implements SmartLifecycle {
         : ": " + message.strip().split("\n", 2)[0]);
   }
 
+  /** Waits {@code ms}, or less if woken: by a submission, or by {@link #stop}. */
   private void sleepQuietly(long ms) {
     try {
-      Thread.sleep(ms);
+      wake.tryAcquire(ms, TimeUnit.MILLISECONDS);
+      wake.drainPermits();
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
       running = false;
