@@ -8,9 +8,15 @@ CREATE TABLE IF NOT EXISTS queue_ticket (
   submitted_by VARCHAR(100) NOT NULL,
   submitted_at TIMESTAMP WITH TIME ZONE NOT NULL,
   claimed_at TIMESTAMP WITH TIME ZONE,
-  attempts INT NOT NULL DEFAULT 0
+  attempts INT NOT NULL DEFAULT 0,
+  failure VARCHAR(2000)
 );
 CREATE INDEX IF NOT EXISTS queue_ticket_status ON queue_ticket(status, seq);
+-- A database of an earlier version: the failure column was added, and the states were named
+-- PENDING (now QUEUED) and CLAIMED (now DECIDING).
+ALTER TABLE queue_ticket ADD COLUMN IF NOT EXISTS failure VARCHAR(2000);
+UPDATE queue_ticket SET status = 'QUEUED' WHERE status = 'PENDING';
+UPDATE queue_ticket SET status = 'DECIDING' WHERE status = 'CLAIMED';
 CREATE TABLE IF NOT EXISTS ticket_decision (
   ticket_id VARCHAR(200) NOT NULL PRIMARY KEY,
   outcome VARCHAR(16) NOT NULL,
@@ -47,4 +53,9 @@ CREATE TABLE IF NOT EXISTS model_activation (
   old_version VARCHAR(40) NOT NULL,
   new_version VARCHAR(40) NOT NULL,
   reason VARCHAR(2000) NOT NULL
+);
+-- One row, written by the health check to show that the database can still store.
+CREATE TABLE IF NOT EXISTS storage_probe (
+  id INT NOT NULL PRIMARY KEY,
+  probed_at TIMESTAMP WITH TIME ZONE NOT NULL
 );

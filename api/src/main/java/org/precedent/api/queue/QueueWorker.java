@@ -2,11 +2,15 @@ package org.precedent.api.queue;
 
 import io.micrometer.core.instrument.Gauge;
 import io.micrometer.core.instrument.MeterRegistry;
-import java.util.List;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Optional;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
 import org.precedent.api.suggest.Decider;
 import org.precedent.api.suggest.DecisionView;
+import org.precedent.api.system.StorageFailures;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.factory.annotation.Value;
@@ -16,23 +20,38 @@ import org.springframework.stereotype.Component;
 /**
  * Decides queued tickets one at a time on a thread of its own. It wakes when a ticket is submitted,
  * and every poll interval in any case (a ticket stored by another instance, or left by a crash).
+ *
+ * <p>Whatever one ticket's decision throws (a {@link StackOverflowError} included) is that
+ * ticket's failure: it is recorded with the ticket and the worker goes on with the next. When the
+ * database itself fails, the worker keeps the outcome it could not store, waits, and stores it
+ * once the database works again, so it recovers without a restart.
  */
 @Component
 class QueueWorker implements SmartLifecycle {
   private static final Logger LOG = LoggerFactory.getLogger(QueueWorker.class);
+  private static final long MAX_PAUSE_MS = 5_000;
   private final TicketQueue queue;
   private final Decider decider;
   private final long pollMs;
   private final Semaphore wake = new Semaphore(0);
+  // Claims whose failure could not be stored yet (the database failed), by ticket id: the
+  // worker's own thread alone touches it.
+  private final Map<String, Unfinished> unfinished = new LinkedHashMap<>();
   private volatile boolean running;
-  private Thread thread;
+  private volatile Thread thread;
+
+  private record Unfinished(TicketQueue.Claimed claim, String reason) {}
 
   QueueWorker(TicketQueue queue, Decider decider, MeterRegistry meters,
       @Value("${precedent.queue.poll-ms}") long pollMs) {
     this.queue = queue;
     this.decider = decider;
     this.pollMs = pollMs;
-    Gauge.builder("precedent.queue.pending", () -> queue.count("PENDING")).register(meters);
+    for (TicketState state : TicketState.values()) {
+      Gauge.builder("precedent.queue.tickets", () -> queue.count(state))
+          .description("tickets in the queue's database, by state")
+          .tag("state", state.name().toLowerCase(Locale.ROOT)).register(meters);
+    }
   }
 
   void wake() {
@@ -41,33 +60,53 @@ class QueueWorker implements SmartLifecycle {
 
   @Override
   public void start() {
-    int released = queue.releaseClaims();
-    if (released > 0) {
+    TicketQueue.Released released = queue.releaseClaims();
+    if (released.queued() > 0) {
       LOG.info("{} tickets were being decided when the service last stopped; deciding them now",
-          released);
+          released.queued());
+    }
+    if (released.failed() > 0) {
+      LOG.warn("{} tickets were being decided when the service stopped on their last try; "
+          + "marked failed, a person must take them", released.failed());
     }
     running = true;
-    thread = new Thread(this::run, "precedent-queue");
-    thread.start();
+    Thread t = new Thread(this::run, "precedent-queue");
+    thread = t;
+    t.start();
   }
 
   private void run() {
+    boolean failing = false;
+    long pause = pollMs;
     while (running) {
       try {
-        List<TicketQueue.Claimed> claimed = queue.claim(16);
-        for (TicketQueue.Claimed c : claimed) {
-          decide(c);
+        storeUnfinished();
+        Optional<TicketQueue.Claimed> claimed = queue.claimNext();
+        if (failing) {
+          LOG.info("queue worker: the database works again");
+          failing = false;
+          pause = pollMs;
         }
-        if (claimed.isEmpty()) {
+        if (claimed.isPresent()) {
+          decide(claimed.get());
+        } else {
           wake.tryAcquire(pollMs, TimeUnit.MILLISECONDS);
           wake.drainPermits();
         }
       } catch (InterruptedException e) {
         return;
-      } catch (RuntimeException e) {
-        // The database may be briefly unavailable; claims stay and are retried.
-        LOG.warn("queue worker: {}", e.toString());
-        sleepQuietly();
+      } catch (Throwable e) {
+        // The database is unavailable (or worse); claims and unstored outcomes stay and are
+        // retried after a pause. The thread must not end here: nothing else would decide tickets.
+        if (!failing) {
+          LOG.warn("queue worker: {}; trying again in {} ms, then less and less often",
+              StorageFailures.isStorageFailure(e) ? "storage failed: "
+                  + StorageFailures.describe(e) : e.toString(), pollMs);
+          failing = true;
+        }
+        sleepQuietly(pause);
+        // Each try while storage fails opens the database anew; a few a minute are enough.
+        pause = Math.min(2 * pause, Math.max(pollMs, MAX_PAUSE_MS));
       }
     }
   }
@@ -76,32 +115,69 @@ class QueueWorker implements SmartLifecycle {
     DecisionView d;
     try {
       d = decider.decide(c.question(), c.category(), 3, "queue");
-    } catch (RuntimeException e) {
+    } catch (RuntimeException | Error e) {
+      String reason = describe(e);
       LOG.warn("ticket {}: decision failed (try {} of {}): {}", c.ticketId(), c.attempt(),
-          TicketQueue.MAX_ATTEMPTS, e.toString());
-      queue.failed(c);
+          TicketQueue.MAX_ATTEMPTS, reason);
+      fail(c, reason);
       return;
     }
-    queue.decided(c, d);
+    try {
+      queue.decided(c, d);
+    } catch (RuntimeException e) {
+      fail(c, "its decision could not be stored: " + (StorageFailures.isStorageFailure(e)
+          ? StorageFailures.describe(e) : describe(e)));
+    }
   }
 
-  private void sleepQuietly() {
+  /** Records a failed try, or keeps it to record once the database works again. */
+  private void fail(TicketQueue.Claimed c, String reason) {
+    unfinished.put(c.ticketId(), new Unfinished(c, reason));
+    storeUnfinished();
+  }
+
+  private void storeUnfinished() {
+    var it = unfinished.values().iterator();
+    while (it.hasNext()) {
+      Unfinished u = it.next();
+      queue.failed(u.claim(), u.reason());
+      it.remove();
+    }
+  }
+
+  /** The error's kind and message, without its trace (a stack overflow's is a thousand lines). */
+  static String describe(Throwable e) {
+    String message = e.getMessage();
+    return e.getClass().getSimpleName() + (message == null || message.isBlank() ? ""
+        : ": " + message.strip().split("\n", 2)[0]);
+  }
+
+  /** Waits {@code ms}, or less if woken: by a submission, or by {@link #stop}. */
+  private void sleepQuietly(long ms) {
     try {
-      Thread.sleep(pollMs);
+      wake.tryAcquire(ms, TimeUnit.MILLISECONDS);
+      wake.drainPermits();
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
       running = false;
     }
   }
 
+  /** Whether the worker's thread is there and deciding tickets. */
+  boolean alive() {
+    Thread t = thread;
+    return running && t != null && t.isAlive();
+  }
+
   @Override
   public void stop() {
     running = false;
     wake.release();
-    if (thread != null) {
+    Thread t = thread;
+    if (t != null) {
       try {
         // A decision in progress finishes and is stored; after that the thread ends.
-        thread.join(30_000);
+        t.join(30_000);
       } catch (InterruptedException e) {
         Thread.currentThread().interrupt();
       }

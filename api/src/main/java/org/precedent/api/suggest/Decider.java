@@ -4,11 +4,14 @@ import io.micrometer.core.instrument.MeterRegistry;
 import org.precedent.api.system.AdvisorLease;
 import org.precedent.api.system.ModelHolder;
 import org.precedent.engine.decide.Decision;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 import org.springframework.stereotype.Component;
 
 /** Decides questions on the model in force, and counts the outcomes for the metrics. */
 @Component
 public class Decider {
+  private static final Logger LOG = LoggerFactory.getLogger(Decider.class);
   private final ModelHolder models;
   private final MeterRegistry meters;
 
@@ -27,6 +30,23 @@ public class Decider {
       meters.counter("precedent.decisions", "source", source, "outcome", d.outcome().name())
           .increment();
       return DecisionView.of(d, lease.version(), limit);
+    } catch (StackOverflowError e) {
+      // The stack is unwound by now, so only this question is lost. Its trace would be a thousand
+      // frames of one loop (a regular expression of a policy file, say): the top one says where.
+      StackTraceElement[] at = e.getStackTrace();
+      LOG.warn("a question of {} characters could not be decided: stack overflow at {}",
+          question.length(), at.length > 0 ? at[0] : "an unknown place");
+      meters.counter("precedent.decisions.failed", "source", source).increment();
+      throw new Undecidable("this question could not be decided: reading its "
+          + question.length() + " characters ran out of stack; a person must answer it");
+    }
+  }
+
+  /** A question that cannot be decided at all; a person must take it. */
+  public static final class Undecidable extends RuntimeException {
+    Undecidable(String message) {
+      // The message says all there is; a trace would only repeat where it was thrown.
+      super(message, null, false, false);
     }
   }
 }

@@ -1,7 +1,10 @@
 package org.precedent.api.suggest;
 
 import jakarta.validation.Valid;
+import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
+import org.springframework.http.ProblemDetail;
+import org.springframework.web.bind.annotation.ExceptionHandler;
 import org.springframework.web.bind.annotation.PostMapping;
 import org.springframework.web.bind.annotation.RequestBody;
 import org.springframework.web.bind.annotation.RestController;
@@ -27,5 +30,13 @@ class SuggestController {
   DecisionView decision(@Valid @RequestBody QuestionRequest request) {
     return decider.decide(request.question(), request.categoryOrNull(), request.limitOr(3),
         "decisions");
+  }
+
+  @ExceptionHandler(Decider.Undecidable.class)
+  ProblemDetail undecidable(Decider.Undecidable e) {
+    ProblemDetail p = ProblemDetail.forStatusAndDetail(HttpStatus.UNPROCESSABLE_ENTITY,
+        e.getMessage());
+    p.setTitle("Question cannot be decided");
+    return p;
   }
 }

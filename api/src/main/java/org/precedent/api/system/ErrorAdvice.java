@@ -100,6 +100,21 @@ class ErrorAdvice extends ResponseEntityExceptionHandler {
     return p;
   }
 
+  /** Storage that fails (a full disk) is the service's problem: 503, and the caller tries again. */
+  @ExceptionHandler(org.springframework.dao.DataAccessException.class)
+  ResponseEntity<ProblemDetail> database(org.springframework.dao.DataAccessException e) {
+    if (!StorageFailures.isStorageFailure(e)) {
+      return ResponseEntity.internalServerError().body(unexpected(e));
+    }
+    LOG.warn("storage failed: {}", StorageFailures.describe(e));
+    ProblemDetail p = ProblemDetail.forStatusAndDetail(HttpStatus.SERVICE_UNAVAILABLE,
+        "the service cannot store or read data right now (" + StorageFailures.describe(e)
+            + "); nothing of this request was kept: send it again later");
+    p.setTitle("Storage unavailable");
+    return ResponseEntity.status(HttpStatus.SERVICE_UNAVAILABLE)
+        .header(HttpHeaders.RETRY_AFTER, "30").body(p);
+  }
+
   @ExceptionHandler(Exception.class)
   ProblemDetail unexpected(Exception e) {
     LOG.error("request failed", e);

@@ -111,6 +111,20 @@ class QueueServiceTest {
         "SELECT COUNT(*) FROM ticket_decision WHERE ticket_id = 'Q-4'", Integer.class));
   }
 
+  /** Ten thousand characters of apostrophe-joined letters: one long word, decided as any other. */
+  @Test
+  void aTicketOfApostropheJoinedLettersIsDecidedAndTheNextOneToo() throws Exception {
+    String hostile = "my bin was not emptied " + "a'".repeat(5000);
+    assertEquals(202, http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-5", "question",
+        hostile), Caller.QUEUE).status());
+    assertEquals(202, http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-6", "question",
+        "Where do I pay my bill?"), Caller.QUEUE).status());
+    assertEquals(1, decided("Q-5").get("attempts").asInt());
+    decided("Q-6");
+    Reply direct = http.post("/api/v1/decisions", Map.of("question", hostile), Caller.QUEUE);
+    assertEquals(200, direct.status(), direct.raw().body());
+  }
+
   @Test
   void anUnknownTicketIs404AndABadIdIsAFieldError() {
     Reply missing = http.get("/api/v1/queue/tickets/NOPE-9", Caller.AGENT);

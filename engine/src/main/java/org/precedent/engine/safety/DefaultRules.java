@@ -21,6 +21,14 @@ import org.precedent.engine.safety.SafetyRule.Specificity;
  *
  * <p>The general rules were written from the support trade's own vocabulary and from the train split of CLINC150
  * (Larson et al. 2019); its test split is kept for measuring them ({@code ClincHandOffTest}).
+ *
+ * <p>Runs of filler words ("is very really ...") take at most eight words and are possessive ({@code {0,8}+}), so that
+ * a hostile question costs time linear in its length and a constant stack. Unbounded, a run that holds the rule's own
+ * first word ("tastes and tastes and tastes ...") is read again from each of its starts, quadratic in its length; and
+ * java.util.regex recurses once per repetition of a group it may have to give back, so thousands of fillers overflow
+ * the stack, while a possessive repetition is a loop that is never re-split. No filler is a word that can follow its
+ * run, so a possessive run finds everything a greedy one would; "all over" after sewage, whose "all" is also a filler,
+ * is written as "(all )?over" for that reason.
  */
 final class DefaultRules {
 
@@ -58,9 +66,9 @@ final class DefaultRules {
   private static final String WATER_VERB = "(?:is|was|are|looks?|looked|looking|has gone|had gone|has been|is going|"
       + "went|gone|turned|turning|coming out|comes out|came out|running|runs|ran)";
   private static final String DEGREE =
-      "(?:(?:all|very|really|quite|a bit|a|slightly|light|dark|pale|deep|bright|completely) )*";
+      "(?:(?:all|very|really|quite|a bit|a|slightly|light|dark|pale|deep|bright|completely) ){0,8}+";
   private static final String SEWAGE = "(?:(?:raw|untreated) )?(?:sew(?:er)?age|foul water)";
-  private static final String ROOM = "(?:(?:my|the|our|their|back|front|rear|downstairs|upstairs) )*(?:house|home|"
+  private static final String ROOM = "(?:(?:my|the|our|their|back|front|rear|downstairs|upstairs) ){0,8}+(?:house|home|"
       + "garden|kitchen|cellar|basement|bathroom|yard|street|road|drive|driveway|toilet|bath|shower|sink|property|"
       + "hall|hallway|living room|lounge|flat|patio|lawn)";
   private static final String PUBLIC_WAY = "(?:road|roads|street|pavement|footpath|tarmac|junction|carriageway)";
@@ -104,7 +112,7 @@ final class DefaultRules {
           + "caught fire|catching fire|catch fire|set (?:itself )?on fire|(?:house|kitchen|electrical|chimney) fire|"
           + "flames (?:coming|shooting|from)|smoke (?:is )?(?:coming|pouring|billowing) (?:from|out)|full of smoke|"
           + PERSON + " (?:(?:'m|am|is|was|were|'s|has|have|had|got|'ve|been|just|badly|seriously|really|"
-          + "has been|have been) )*(?:hurt|injured|wounded|burned|burnt|scalded|electrocuted|knocked (?:down|over|"
+          + "has been|have been) ){0,8}+(?:hurt|injured|wounded|burned|burnt|scalded|electrocuted|knocked (?:down|over|"
           + "out)|hit by)(?! (?:my|your|our|the) (?:credit|feelings))|"
           + "(?:broke|broken|fractured|hurt|cut|injured|twisted|sprained) (?:my|his|her|their) (?:arm|leg|ankle|"
           + "wrist|hip|foot|hand|nose|back|neck|head|knee|shoulder|elbow|finger|toe|ribs?)|"
@@ -148,11 +156,11 @@ final class DefaultRules {
 
   private static final List<Spec> ENERGY_DANGER = List.of(
       new Spec("energy-line-down", "electricity", ENERGY, SITUATION, "(?:power|electricity|electric|overhead|"
-          + "pylon) (?:lines?|cables?|wires?) (?:(?:is|are|has|have|had|been|just|now) )*(?:down|fallen|come down|"
+          + "pylon) (?:lines?|cables?|wires?) (?:(?:is|are|has|have|had|been|just|now) ){0,8}+(?:down|fallen|come down|"
           + "came down|snapped|hanging down|dangling|on the (?:ground|road|floor|pavement))|"
           + "(?:fallen|snapped|dangling|low-hanging|low hanging) (?:power |electricity |electric |overhead )"
           + "(?:lines?|cables?|wires?)|"
-          + "(?:pylon|electricity pole|power pole|telegraph pole) (?:(?:is|has|was|have) )*(?:down|fallen|come down|"
+          + "(?:pylon|electricity pole|power pole|telegraph pole) (?:(?:is|has|was|have) ){0,8}+(?:down|fallen|come down|"
           + "leaning|on fire|collapsed)|substation (?:is )?(?:on fire|fire|explo\\w*|sparking|open|broken into)"),
       new Spec("energy-medical-dependency", "vulnerable-supply", ENERGY, SITUATION, MEDICAL_KIT + " " + gap(10)
           + NO_POWER + "|" + NO_POWER + " " + gap(10) + MEDICAL_KIT),
@@ -169,14 +177,14 @@ final class DefaultRules {
       // Account compromise, and requests to block or freeze an account or card (what customers ask after one).
       new Spec("account-compromise", "account-security", GENERAL, SITUATION, "hacked|hackers?|hacking (?:into|my)|"
           + "(?:account|card|email|password|details|pin|login|log-?in|identity|data|information|phone|sim) "
-          + "(?:(?:has|have|had|was|were|is|are|been|got|may|might|could|must|have|be|i think|probably) )*"
+          + "(?:(?:has|have|had|was|were|is|are|been|got|may|might|could|must|have|be|i think|probably) ){0,8}+"
           + "(?:compromised|breached|leaked|exposed|hijacked|taken over|cloned|skimmed|swapped)|"
           // A stolen card is lost-stolen; stolen credentials are a compromise of the account they open.
           + "(?:password|passwords|pin|passcode|login details|log-?in details|security details|personal details|"
-          + "online banking details) (?:(?:has|have|had|was|were|is|are|been|got|may|might|could|must|be) )*stolen|"
+          + "online banking details) (?:(?:has|have|had|was|were|is|are|been|got|may|might|could|must|be) ){0,8}+stolen|"
           + "(?:cloned|skimmed) cards?|data breach|sim swap\\w*|"
           + "(?:someone|somebody|a stranger|a thief|thieves|some(?:one|body) else|they) (?:(?:has|had|have|is|was|"
-          + "were|must have|may have|might have|could have|else|just) )*(?:accessed|access|got into|gotten into|"
+          + "were|must have|may have|might have|could have|else|just) ){0,8}+(?:accessed|access|got into|gotten into|"
           + "logged into|logging into|logged in to|broken into|broke into|taken over|took over|changed the "
           + "password (?:on|of|for)) (?:my|our) " + modifiers(3) + "(?:account|accounts|login|email|profile|"
           + "online banking|banking|app)|"
@@ -186,7 +194,7 @@ final class DefaultRules {
           + "somebody|caller|man|woman|person|fake)"),
       new Spec("account-freeze-request", "account-security", GENERAL, SITUATION, "(?:freeze|freezing|froze|block|"
           + "blocking|halt|hault|suspend|disable|deactivate|lock|lock down|pause|hold) (?:(?:all|any|further|future|"
-          + "immediately) )*(?:my|our|the|this|that) " + gap(4) + ACCOUNT + "|"
+          + "immediately) ){0,8}+(?:my|our|the|this|that) " + gap(4) + ACCOUNT + "|"
           + "(?:put|place|placed|putting|placing|add|adding|do|get|need|want|like|a|an) (?:a |an )?(?:stop|block|"
           + "freeze|hold|halt|hault|lock|pause)(?: (?:put|placed|added))? (?:on|to) (?:my|our|the|this|that) "
           + gap(4) + ACCOUNT + "|(?:put|place) (?:my|our|the) " + gap(3) + "account on (?:hold|stop|ice)|"
@@ -206,7 +214,7 @@ final class DefaultRules {
           + "charges?) " + gap(4) + "(?:on|from|in|through|to) (?:my|our|the) " + gap(4) + ACCOUNT + "|"
           + "no (?:more |further )?(?:payments?|transactions?|withdrawals?) (?:on|from|out of|to) (?:my|our|the) "
           + modifiers(3) + "account|"
-          + "(?:stop|halt|pause|block|prevent) (?:(?:all|any|further|future|more) )*(?:payments?|transactions?|"
+          + "(?:stop|halt|pause|block|prevent) (?:(?:all|any|further|future|more) ){0,8}+(?:payments?|transactions?|"
           + "activity|processing|withdrawals?|charges?|actions?) (?:on|to|from|in|through|using|with|going "
           + "through|out of) (?:my|our|the) " + modifiers(3) + "(?:account|bank|card)|"
           + "(?:don't|do not|dont) (?:let|allow) (?:any )?(?:more |further )?(?:payments?|transactions?|actions?|"
@@ -222,7 +230,7 @@ final class DefaultRules {
           + modifiers(3) + PAYMENT_MEANS + "(?!'s)|"
           + PAYMENT_MEANS + " (?:(?:is|was|has|have|had|been|got|gets|get|'s|just|now|probably|possibly|maybe|"
           + "definitely|either|to be|needs to be|need to be|reported|report|marked|labeled|labelled|as|it|it's|"
-          + "that|that's|which|being) )*(?:lost|stolen|missing|nicked|misplaced|gone missing|disappeared|vanished|"
+          + "that|that's|which|being) ){0,8}+(?:lost|stolen|missing|nicked|misplaced|gone missing|disappeared|vanished|"
           + "taken(?! (?:by|in|into) (?:the |a |an )?(?:atm|machine|cash machine|cashpoint)))|"
           + PAYMENT_MEANS + ", (?:it's|it is|it was|it has|it's been|it has been|it got|they're|they were|they have) "
           + "(?:been )?(?:lost|stolen|gone missing)|"
@@ -252,7 +260,7 @@ final class DefaultRules {
           + "(?:my|our) (?:permission|consent|authori[sz]ation|knowledge|approval)|"
           + "(?:used|charged|accessed|charging|using) by (?:someone|somebody|a stranger|a thief)|"
           + "(?:someone|somebody|a thief|thieves|a stranger|some(?:one|body) else) (?:(?:has|had|have|is|was|"
-          + "must have|may have|might have|could have|else|just) )*(?:used|using|use|spent|spending|took money|"
+          + "must have|may have|might have|could have|else|just) ){0,8}+(?:used|using|use|spent|spending|took money|"
           + "charging|taken money|withdrawn|withdrew|made (?:charges|purchases|payments|transactions)|charged|bought|"
           + "misused|emptied) " + gap(3) + "(?:my|our|the|it|them)(?: " + modifiers(3) + "(?:cards?|account|"
           + "accounts|details|money|visa|mastercard|amex|bank))?"),
@@ -321,9 +329,9 @@ final class DefaultRules {
 
       // Sewage: flooding from the sewer is a health hazard, inside or out.
       new Spec("sewage-flooding", "sewage", WATER_WASTE, SITUATION,
-          SEWAGE + " (?:(?:is|was|has|had|keeps|kept|are|were|all|just|now) )*"
+          SEWAGE + " (?:(?:is|was|has|had|keeps|kept|are|were|all|just|now) ){0,8}+"
           + "(?:flood\\w*|coming|came|comes|bubbling|bubbled|pouring|poured|overflowing|overflowed|spilling|"
-          + "spilled|leaking|leaked|backing up|backed up|seeping|rising|everywhere|all over|up through|"
+          + "spilled|leaking|leaked|backing up|backed up|seeping|rising|everywhere|(?:all )?over|up through|"
           + "in it|(?:in|into) " + ROOM + ")|"
           + "(?:flood\\w*|overflowing|filled|full|covered|swimming) (?:with |in )?" + SEWAGE),
 
@@ -332,7 +340,7 @@ final class DefaultRules {
           + "(?:burst|broken|leaking) (?:water )?(?:pipe|main) (?:in|on|under) (?:the )?" + PUBLIC_WAY + "|"
           + "(?:pipe|main) (?:has |had )?burst (?:in|on|under) (?:the )?" + PUBLIC_WAY),
       new Spec("burst-water-in-road", "burst-main", WATER_WASTE, SITUATION,
-          "(?:water|leak) (?:(?:is|was|keeps|has been|just) )*"
+          "(?:water|leak) (?:(?:is|was|keeps|has been|just) ){0,8}+"
           + "(?:gushing|pouring|spurting|spraying|bubbling|pumping|fountaining|shooting|streaming|flooding|"
           + "running|coming|welling|rushing|leaking)(?: up| out| down)?"
           + "(?: (?:of|through|from|into|onto|across|along|over|under|in|out of))? " + gap(4) + PUBLIC_WAY + "|"
@@ -345,7 +353,7 @@ final class DefaultRules {
       // Water that is contaminated: the situation named. The colours, bits, smells and tastes after it are signs.
       new Spec("wq-contaminated", "water-quality", WATER_WASTE, SITUATION,
           "(?:water|supply) (?:(?:is|was|has been|might be|may be|"
-          + "could be|must be|got|getting|become|been) )*(?:contaminated|polluted|poisoned|unsafe|not safe)|"
+          + "could be|must be|got|getting|become|been) ){0,8}+(?:contaminated|polluted|poisoned|unsafe|not safe)|"
           + "(?:contaminated|polluted|unsafe) (?:tap |drinking )?water|"
           + "(?:contamination|pollution) (?:of|in) (?:the|my|our) (?:tap |drinking )?water|"
           + "something (?:has )?got into the water"),
@@ -362,12 +370,12 @@ final class DefaultRules {
       new Spec("wq-smell-taste", "water-quality", WATER_WASTE, SIGN,
           "(?:smells?|smelling|smelt|smelled|stinks?|stinking|stank|"
           + "tastes?|tasting|tasted) (?:(?:strongly|really|very|quite|a bit|a little|slightly|horribly|awful|"
-          + "and tastes|and smells|of|like) )*(?:sewage|sewers?|drains?|chemicals?|petrol|diesel|bleach|oil|"
+          + "and tastes|and smells|of|like) ){0,8}+(?:sewage|sewers?|drains?|chemicals?|petrol|diesel|bleach|oil|"
           + "solvents?|paraffin|kerosene|rotten eggs?|plastic|earth|antiseptic|disinfectant|fuel)|"
           + "(?:strange|chemical|solvent|petrol|diesel|oily|sewage|foul|horrible|disgusting) "
           + "(?:taste|smell|odou?r)s?"),
       new Spec("wq-off-taste", "water-quality", WATER_WASTE, SIGN, "(?:smells?|smelling|smelt|tastes?|tasting|tasted) "
-          + "(?:(?:really|very|quite|a bit|a little|so|and tastes|and smells) )*(?:off|funny|strange|disgusting|"
+          + "(?:(?:really|very|quite|a bit|a little|so|and tastes|and smells) ){0,8}+(?:off|funny|strange|disgusting|"
           + "horrible|awful|foul|rank|vile|revolting|weird)|"
           + "(?:water|it) " + gap(3) + "(?:smells|stinks)(?! (?:(?:a bit|slightly|a little|faintly) )?"
           + "(?:of|like) (?:a )?(?:swimming pools?|chlorine))"));

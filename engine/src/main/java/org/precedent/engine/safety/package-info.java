@@ -64,7 +64,10 @@
  * <ul>
  *   <li>Ids and topics are lower-case letters, digits, {@code .}, {@code _} and {@code -}. A pattern is a Java
  *       regular expression, wrapped so that it matches whole words, case-insensitively, against the prepared
- *       question; write single spaces between words.
+ *       question; write single spaces between words. Write a repeated group bounded and possessive, as the
+ *       built-in rules do ({@code (?:(?:very|really) ){0,8}+}): java.util.regex recurses once per repetition of a
+ *       plain {@code (...)*}, so a long question could overflow the stack, and that question then cannot be
+ *       decided (a queued ticket is marked failed, for a person to take).
  *   <li>A file rule with the id of a built-in rule replaces it in its place; other rules come after the built-in
  *       ones, in file order. That order breaks ties between rules of the same specificity.
  *   <li>A rule's caution is the file's caution for its topic if there is one, else the built-in text for the topic,

@@ -40,36 +40,40 @@ final class Salutations {
 
   private Salutations() {}
 
-  /** Strips openings from the first content line until none is left; true if anything changed. */
-  static boolean strip(List<String> lines, boolean agentReply) {
-    boolean changed = false;
-    while (true) {
+  /**
+   * Strips openings from the first content line until none is left, at most {@code max} of them;
+   * returns how many it took.
+   */
+  static int strip(List<String> lines, boolean agentReply, int max) {
+    int taken = 0;
+    while (taken < max) {
       int i = Wording.firstContent(lines);
       if (i < 0) {
-        return changed;
+        return taken;
       }
       String line = lines.get(i);
       if (isGreetingLine(line)
           || PLEASANTRY.matcher(line).matches()
           || (agentReply && AGENT_OPENER.matcher(line).matches())) {
         lines.set(i, "");
-        changed = true;
+        taken++;
         continue;
       }
       Matcher prefix = GREETING_PREFIX.matcher(line);
       if (prefix.lookingAt() && addressesSomeone(prefix.group("names"))) {
         lines.set(i, line.substring(prefix.end()));
-        changed = true;
+        taken++;
         continue;
       }
       Matcher pleasantry = PLEASANTRY_PREFIX.matcher(line);
       if (pleasantry.lookingAt()) {
         lines.set(i, line.substring(pleasantry.end()));
-        changed = true;
+        taken++;
         continue;
       }
-      return changed;
+      return taken;
     }
+    return taken;
   }
 
   private static boolean isGreetingLine(String line) {

@@ -39,16 +39,19 @@ final class SignOffs {
   private static final int MAX_SIGNATURE_WORDS = 6;
   private static final int MAX_NAME_WORDS = 3;
   private static final int MAX_POLITE_WORDS = 6;
+  // Longest inline sign-off looked for: "Many thanks in advance, " and two names; no real one
+  // comes near (common practice, no source).
+  private static final int MAX_INLINE_CHARS = 200;
 
   private SignOffs() {}
 
-  /** Strips closings from the end until none is left; true if anything changed. */
-  static boolean strip(List<String> lines, boolean agentReply) {
-    boolean changed = false;
-    while (stripOnce(lines, agentReply)) {
-      changed = true;
+  /** Strips closings from the end until none is left, at most {@code max}; returns how many. */
+  static int strip(List<String> lines, boolean agentReply, int max) {
+    int taken = 0;
+    while (taken < max && stripOnce(lines, agentReply)) {
+      taken++;
     }
-    return changed;
+    return taken;
   }
 
   private static boolean stripOnce(List<String> lines, boolean agentReply) {
@@ -126,7 +129,10 @@ final class SignOffs {
 
   private static boolean inlineSignOff(List<String> lines, int last) {
     String line = lines.get(last);
-    Matcher m = INLINE_SIGN_OFF.matcher(line);
+    // The sign-off ends the line, so only the line's end is searched: each search then costs the
+    // same however long the line, and stacked sign-offs cost no more than a pass each.
+    Matcher m = INLINE_SIGN_OFF.matcher(line).useTransparentBounds(true)
+        .region(Math.max(0, line.length() - MAX_INLINE_CHARS), line.length());
     if (!m.find()) {
       return false;
     }
