@@ -11,22 +11,31 @@ import java.util.stream.Stream;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.ExtendWith;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.RunningService;
+import org.springframework.boot.test.system.CapturedOutput;
+import org.springframework.boot.test.system.OutputCaptureExtension;
 
-/** Every endpoint refuses callers without credentials (401) and callers of another role (403). */
+/**
+ * Every endpoint refuses callers without credentials (401) and callers of another role (403); with
+ * nothing configured the demo credentials are in force and announced.
+ */
+@ExtendWith(OutputCaptureExtension.class)
 class SecurityTest {
   static RunningService service;
   static Http http;
+  static String startOutput;
 
   @BeforeAll
-  static void start() {
+  static void start(CapturedOutput output) {
     service = RunningService.start();
     http = service.http();
+    startOutput = output.getAll();
   }
 
   @AfterAll
@@ -96,6 +105,12 @@ class SecurityTest {
         assertEquals("Forbidden", r.json().get("title").asText());
       }
     }
+  }
+
+  @Test
+  void withNoCredentialsConfiguredTheDemoOnesWorkAndAreAnnounced() {
+    assertTrue(startOutput.contains("demo credentials in force"), startOutput);
+    assertEquals(200, http.get("/api/v1/threshold", Caller.MANAGER).status());
   }
 
   @Test
