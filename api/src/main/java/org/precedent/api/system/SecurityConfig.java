@@ -32,10 +32,23 @@ class SecurityConfig {
       + "img-src 'self' data:; object-src 'none'; base-uri 'none'; form-action 'self'; "
       + "frame-ancestors 'none'";
 
+  /** The OpenAPI page, and where springdoc serves its files (it redirects from the first). */
+  static final String DOCS = "/api/v1/docs";
+  static final String DOCS_FILES = "/api/v1/swagger-ui/";
+  // The OpenAPI page's script (springdoc's Swagger UI) adds style elements as it draws; scripts
+  // stay limited to its own files.
+  static final String DOCS_POLICY = PAGE_POLICY.replace("style-src 'self'",
+      "style-src 'self' 'unsafe-inline'");
+
   static boolean isPage(HttpServletRequest request) {
     String path = request.getRequestURI();
     return path.equals("/") || path.equals("/desk") || path.equals("/manage")
         || path.startsWith("/pages/");
+  }
+
+  static boolean isDocs(HttpServletRequest request) {
+    String path = request.getRequestURI();
+    return path.equals(DOCS) || path.startsWith(DOCS_FILES);
   }
 
   @Bean
@@ -57,15 +70,18 @@ class SecurityConfig {
     http.csrf(c -> c.disable())
         .headers(h -> h.addHeaderWriter(new DelegatingRequestMatcherHeaderWriter(
             SecurityConfig::isPage, new StaticHeadersWriter("Content-Security-Policy",
-                PAGE_POLICY))))
+                PAGE_POLICY)))
+            .addHeaderWriter(new DelegatingRequestMatcherHeaderWriter(SecurityConfig::isDocs,
+                new StaticHeadersWriter("Content-Security-Policy", DOCS_POLICY))))
         .sessionManagement(s -> s.sessionCreationPolicy(SessionCreationPolicy.STATELESS))
         .exceptionHandling(e -> e.authenticationEntryPoint(problems).accessDeniedHandler(problems))
         .addFilterBefore(new SignInFilter(credentials, limiter, problems),
             BasicAuthenticationFilter.class)
         .authorizeHttpRequests(a -> a
             .requestMatchers(GET, "/actuator/health", "/actuator/health/**").permitAll()
-            .requestMatchers("/api/v1/openapi", "/api/v1/openapi/**", "/api/v1/docs",
-                "/api/v1/docs/**", "/swagger-ui/**").permitAll()
+            // The OpenAPI description and its page hold no data; calls from the page sign in.
+            .requestMatchers(GET, "/api/v1/openapi", "/api/v1/openapi/**", DOCS, DOCS + "/**",
+                DOCS_FILES + "**").permitAll()
             // The pages hold no data; they call the API below with the caller's own credentials.
             .requestMatchers(GET, "/", "/desk", "/manage", "/pages/**", "/error").permitAll()
             .requestMatchers(POST, "/api/v1/suggestions").hasAnyRole("AGENT", "MANAGER")
