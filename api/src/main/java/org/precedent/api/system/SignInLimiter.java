@@ -169,24 +169,36 @@ class SignInLimiter {
     }
   }
 
-  /** The latest {@code limit} failure times of one key, in a ring. */
+  /**
+   * The latest {@code limit} failure times of one key, in a ring that grows with them: a key with
+   * one failure holds one time, whatever the limit.
+   */
   private static final class Recent {
-    final long[] times;
+    final int limit;
+    long[] times = new long[1];
     int count;
+    /** Once {@code count == limit}: where the oldest time is, and the next one goes. */
     int next;
 
     Recent(int limit) {
-      times = new long[limit];
+      this.limit = limit;
     }
 
     void add(long now) {
-      times[next] = now;
-      next = (next + 1) % times.length;
-      count = Math.min(count + 1, times.length);
+      if (count < limit) {
+        if (count == times.length) {
+          times = java.util.Arrays.copyOf(times, (int) Math.min(limit, 2L * times.length));
+        }
+        times[count++] = now;
+        next = count % limit;
+      } else {
+        times[next] = now;
+        next = (next + 1) % limit;
+      }
     }
 
     long latest() {
-      return times[(next - 1 + times.length) % times.length];
+      return count < limit ? times[count - 1] : times[(next - 1 + limit) % limit];
     }
   }
 }

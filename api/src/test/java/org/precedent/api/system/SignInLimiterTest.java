@@ -65,6 +65,21 @@ class SignInLimiterTest {
   }
 
   @Test
+  void aLargeAllowanceCostsMemoryOnlyForTheFailuresThereWere() {
+    // Were each entry sized by the allowance, 2,000 entries a table would need 32 GB.
+    SignInLimiter lax = new SignInLimiter(1_000_000, 1_000_000, Duration.ofSeconds(60), 10_000,
+        now::get);
+    for (int i = 0; i < 2_000; i++) {
+      lax.failed("10.2." + (i / 250) + "." + (i % 250), "name-" + i);
+    }
+    assertEquals(2_000, lax.tracked()[1]);
+    for (int i = 0; i < 1_000; i++) {
+      lax.failed("10.3.0.1", "ana");
+    }
+    assertEquals(Optional.empty(), lax.refusal("10.3.0.1", "ana"));
+  }
+
+  @Test
   void anIpv6ClientIsCountedByItsSlash64Network() {
     for (int i = 1; i <= 3; i++) {
       limiter.failed("2001:db8:1:2:0:0:0:" + i, null);
