@@ -1,7 +1,6 @@
 package org.precedent.api.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.time.ZoneOffset;
@@ -125,7 +124,7 @@ final class EvaluateCommand implements Callable<Integer> {
         new Ranker(active.fusion()), active.safety(), questions, new Progress("evaluating", "tickets", System.err));
     EvaluationReport report = EvaluationReports.build(dataset + " (model " + active.version()
         + ")", runs, target);
-    Files.createDirectories(dir);
+    org.precedent.knowledge.store.AtomicFiles.createPrivateDirectories(dir);
     String stamp = DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss").withZone(ZoneOffset.UTC)
         .format(Instant.now());
     Path json = dir.resolve("evaluation-" + stamp + ".json");

@@ -80,8 +80,8 @@ final class ServeCommand implements Callable<Integer> {
       }
     });
     String version = context.getBean(ModelHolder.class).version();
-    out.printf("Precedent is serving model %s from %s at http://localhost:%d/%n", version,
-        data.toAbsolutePath(), PrecedentServer.port(context));
+    out.printf("Precedent is serving model %s from %s at %s%n", version,
+        data.toAbsolutePath(), PrecedentServer.url(context));
     out.println("Stop it with Ctrl-C.");
     out.flush();
     closed.await();

@@ -33,7 +33,7 @@ import picocli.CommandLine.Spec;
         "It starts the service on the data directory's active model (loopback, a free port) and "
             + "drives N concurrent clients against the decision endpoint for a bounded time, then "
             + "reports throughput, latency p50/p99 and errors. Questions are generated demo-style "
-            + "tickets."})
+            + "tickets. Then it times failed sign-ins for a known and an unknown user name."})
 final class ServiceBenchmark implements Callable<Integer> {
   private static final String KEY = "bench-agent-key";
 
@@ -51,15 +51,23 @@ final class ServiceBenchmark implements Callable<Integer> {
       description = "How long to drive load, after a 5 s warm-up (default ${DEFAULT-VALUE}).")
   int seconds;
 
+  @Option(names = "--guessers", paramLabel = "N", defaultValue = "0",
+      description = "Clients guessing passwords (each from its own loopback address) during the "
+          + "measured load (default ${DEFAULT-VALUE}).")
+  int guessers;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     // The data directory of --data: one with a trained model, such as the demo's.
     Path data = benchmark.parent.dataDir();
     NumericLibrary.announce(spec.commandLine().getErr());
-    ConfigurableApplicationContext context = PrecedentServer.start(data, 0,
-        List.of("--precedent.security.keys=bench:" + KEY + ":agent"));
+    List<String> settings = new ArrayList<>(List.of("--precedent.security.keys=bench:" + KEY
+        + ":agent"));
+    settings.addAll(SignInBenchmark.settings(java.util.UUID.randomUUID().toString()));
+    ConfigurableApplicationContext context = PrecedentServer.start(data, 0, settings);
     try {
+      SignInBenchmark signIn = new SignInBenchmark(PrecedentServer.port(context));
       URI uri = URI.create("http://127.0.0.1:" + PrecedentServer.port(context)
           + "/api/v1/decisions");
       ObjectMapper json = new ObjectMapper();
@@ -69,6 +77,8 @@ final class ServiceBenchmark implements Callable<Integer> {
       }
       HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
       drive(http, uri, bodies, 5);
+      SignInBenchmark.Guessing guessing = signIn.guess(guessers,
+          System.nanoTime() + seconds * 1_000_000_000L);
       Result r = drive(http, uri, bodies, seconds);
       long[] nanos = r.nanos();
       Arrays.sort(nanos);
@@ -78,6 +88,8 @@ final class ServiceBenchmark implements Callable<Integer> {
               + "p99 %.1f ms, max %.1f ms%n", nanos.length, r.errors(), nanos.length / (double) seconds,
           percentile(nanos, 0.50) / 1e6, percentile(nanos, 0.99) / 1e6,
           nanos.length == 0 ? 0 : nanos[nanos.length - 1] / 1e6);
+      guessing.report(out);
+      signIn.failureLatency(out, 100);
       return r.errors() == 0 ? 0 : PrecedentCommand.FAILED;
     } finally {
       context.close();

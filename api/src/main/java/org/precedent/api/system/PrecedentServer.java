@@ -1,10 +1,10 @@
 package org.precedent.api.system;
 
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.precedent.knowledge.store.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
 import org.springframework.beans.factory.annotation.Value;
 import org.springframework.boot.SpringApplication;
@@ -30,23 +30,50 @@ public class PrecedentServer {
   public static ConfigurableApplicationContext start(Path data, int port, List<String> extra)
       throws IOException {
     Path root = data.toAbsolutePath().normalize();
-    Files.createDirectories(root.resolve("service"));
+    new DataDir(root).makePrivate();
+    Path service = root.resolve("service");
+    AtomicFiles.createPrivateDirectories(service);
     List<String> args = new ArrayList<>();
     args.add("--precedent.data=" + root);
     args.add("--server.port=" + port);
     args.addAll(extra);
     SpringApplication app = new SpringApplication(PrecedentServer.class);
     app.addListeners(new DatabaseFileCheck());
+    ConfigurableApplicationContext context;
     try {
-      return app.run(args.toArray(String[]::new));
+      context = app.run(args.toArray(String[]::new));
     } catch (RuntimeException e) {
       throw ServiceStartException.of(e);
     }
+    // The database's files come from H2, with the process's default permissions.
+    AtomicFiles.makePrivate(service);
+    return context;
   }
 
   /** The port the running service listens on. */
   public static int port(ConfigurableApplicationContext context) {
     return ((ServletWebServerApplicationContext) context).getWebServer().getPort();
+  }
+
+  /**
+   * Where to reach the running service from this machine: https when TLS is set up, and the
+   * configured address unless it is this machine's own or every interface.
+   */
+  public static String url(ConfigurableApplicationContext context) {
+    var server = (org.springframework.boot.web.embedded.tomcat.TomcatWebServer)
+        ((ServletWebServerApplicationContext) context).getWebServer();
+    String scheme = server.getTomcat().getConnector().getScheme();
+    String host = "localhost";
+    String address = context.getEnvironment().getProperty("server.address", "");
+    try {
+      java.net.InetAddress bound = java.net.InetAddress.getByName(address);
+      if (!address.isBlank() && !bound.isLoopbackAddress() && !bound.isAnyLocalAddress()) {
+        host = bound instanceof java.net.Inet6Address ? "[" + address + "]" : address;
+      }
+    } catch (java.net.UnknownHostException e) {
+      host = address;
+    }
+    return scheme + "://" + host + ":" + port(context) + "/";
   }
 
   @Bean(destroyMethod = "close")

@@ -14,7 +14,7 @@ import org.springframework.security.web.AuthenticationEntryPoint;
 import org.springframework.security.web.access.AccessDeniedHandler;
 import org.springframework.stereotype.Component;
 
-/** 401 and 403 as RFC 9457 problem details, like every other error of the service. */
+/** 401, 403 and 429 as RFC 9457 problem details, like every other error of the service. */
 @Component
 class ProblemResponses implements AuthenticationEntryPoint, AccessDeniedHandler {
   private final ObjectMapper json = new ObjectMapper();
@@ -27,9 +27,9 @@ class ProblemResponses implements AuthenticationEntryPoint, AccessDeniedHandler 
     if (!"XMLHttpRequest".equals(request.getHeader("X-Requested-With"))) {
       response.setHeader("WWW-Authenticate", "Basic realm=\"precedent\"");
     }
-    String detail = request.getHeader(ApiKeyFilter.HEADER) != null ? e.getMessage()
+    String detail = request.getHeader(SignInFilter.HEADER) != null ? e.getMessage()
         : request.getHeader("Authorization") != null ? "user name or password is wrong"
-        : "send an API key in the " + ApiKeyFilter.HEADER + " header, or HTTP basic credentials";
+        : "send an API key in the " + SignInFilter.HEADER + " header, or HTTP basic credentials";
     write(request, response, HttpStatus.UNAUTHORIZED, detail);
   }
 
@@ -38,6 +38,14 @@ class ProblemResponses implements AuthenticationEntryPoint, AccessDeniedHandler 
       AccessDeniedException e) throws IOException {
     write(request, response, HttpStatus.FORBIDDEN, "your role may not "
         + request.getMethod() + " " + request.getRequestURI());
+  }
+
+  /** Too many failed sign-ins: 429 with Retry-After (RFC 6585, RFC 9110 section 10.2.3). */
+  void tooManyFailures(HttpServletRequest request, HttpServletResponse response,
+      SignInLimiter.Refusal refusal) throws IOException {
+    response.setHeader("Retry-After", Long.toString(refusal.retryAfterSeconds()));
+    write(request, response, HttpStatus.TOO_MANY_REQUESTS, refusal.detail() + "; try again in "
+        + refusal.retryAfterSeconds() + " s");
   }
 
   private void write(HttpServletRequest request, HttpServletResponse response, HttpStatus status,

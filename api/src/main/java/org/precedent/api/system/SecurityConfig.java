@@ -5,7 +5,6 @@ import static org.springframework.http.HttpMethod.POST;
 import static org.springframework.http.HttpMethod.PUT;
 
 import jakarta.servlet.http.HttpServletRequest;
-import java.util.Locale;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.beans.factory.annotation.Value;
@@ -13,9 +12,6 @@ import org.springframework.context.annotation.Bean;
 import org.springframework.context.annotation.Configuration;
 import org.springframework.security.config.annotation.web.builders.HttpSecurity;
 import org.springframework.security.config.http.SessionCreationPolicy;
-import org.springframework.security.core.userdetails.User;
-import org.springframework.security.core.userdetails.UserDetailsService;
-import org.springframework.security.provisioning.InMemoryUserDetailsManager;
 import org.springframework.security.web.SecurityFilterChain;
 import org.springframework.security.web.authentication.www.BasicAuthenticationFilter;
 import org.springframework.security.web.header.writers.DelegatingRequestMatcherHeaderWriter;
@@ -24,13 +20,11 @@ import org.springframework.security.web.header.writers.StaticHeadersWriter;
 /**
  * Who may do what. Agents ask for suggestions and give feedback; the queue submits tickets;
  * managers change the threshold and the model. Callers prove who they are with an API key or with
- * HTTP basic; no sessions are kept.
+ * HTTP basic ({@link SignInFilter}); no sessions are kept.
  */
 @Configuration
 class SecurityConfig {
   private static final Logger LOG = LoggerFactory.getLogger(SecurityConfig.class);
-  static final String DEMO_USERS = "agent:agent-demo-password:agent,"
-      + "manager:manager-demo-password:manager,queue:queue-demo-password:queue";
 
   // The pages load only their own files and run no inline script, so text that slips into markup
   // by mistake still cannot run.
@@ -38,50 +32,56 @@ class SecurityConfig {
       + "img-src 'self' data:; object-src 'none'; base-uri 'none'; form-action 'self'; "
       + "frame-ancestors 'none'";
 
+  /** The OpenAPI page, and where springdoc serves its files (it redirects from the first). */
+  static final String DOCS = "/api/v1/docs";
+  static final String DOCS_FILES = "/api/v1/swagger-ui/";
+  // The OpenAPI page's script (springdoc's Swagger UI) adds style elements as it draws; scripts
+  // stay limited to its own files.
+  static final String DOCS_POLICY = PAGE_POLICY.replace("style-src 'self'",
+      "style-src 'self' 'unsafe-inline'");
+
   static boolean isPage(HttpServletRequest request) {
     String path = request.getRequestURI();
     return path.equals("/") || path.equals("/answers") || path.equals("/manage")
         || path.startsWith("/pages/");
   }
 
+  static boolean isDocs(HttpServletRequest request) {
+    String path = request.getRequestURI();
+    return path.equals(DOCS) || path.startsWith(DOCS_FILES);
+  }
+
   @Bean
   Credentials credentials(@Value("${precedent.security.users:}") String users,
       @Value("${precedent.security.keys:}") String keys) {
-    Credentials c = new Credentials(users, keys);
-    if (DEMO_USERS.equals(users)) {
-      LOG.warn("demo credentials in force (replace them with precedent.security.users and "
-          + "precedent.security.keys): users agent, manager, queue with password "
-          + "<role>-demo-password; API keys demo-agent-key, demo-manager-key, demo-queue-key");
+    Credentials c = Credentials.fromSettings(users, keys);
+    if (c.demo()) {
+      LOG.warn("demo credentials in force (replace them with precedent.security.users or "
+          + "precedent.security.keys; either replaces all of them): users agent, manager, queue "
+          + "with password <role>-demo-password; API keys demo-agent-key, demo-manager-key, "
+          + "demo-queue-key");
     }
     return c;
   }
 
   @Bean
-  UserDetailsService users(Credentials credentials) {
-    InMemoryUserDetailsManager manager = new InMemoryUserDetailsManager();
-    for (Credentials.Entry u : credentials.users()) {
-      String secret = u.secret().startsWith("{") ? u.secret() : "{noop}" + u.secret();
-      manager.createUser(User.withUsername(u.name()).password(secret)
-          .roles(u.role().toUpperCase(Locale.ROOT)).build());
-    }
-    return manager;
-  }
-
-  @Bean
-  SecurityFilterChain api(HttpSecurity http, Credentials credentials, ProblemResponses problems)
-      throws Exception {
+  SecurityFilterChain api(HttpSecurity http, Credentials credentials, SignInLimiter limiter,
+      ProblemResponses problems) throws Exception {
     http.csrf(c -> c.disable())
         .headers(h -> h.addHeaderWriter(new DelegatingRequestMatcherHeaderWriter(
             SecurityConfig::isPage, new StaticHeadersWriter("Content-Security-Policy",
-                PAGE_POLICY))))
+                PAGE_POLICY)))
+            .addHeaderWriter(new DelegatingRequestMatcherHeaderWriter(SecurityConfig::isDocs,
+                new StaticHeadersWriter("Content-Security-Policy", DOCS_POLICY))))
         .sessionManagement(s -> s.sessionCreationPolicy(SessionCreationPolicy.STATELESS))
-        .httpBasic(b -> b.authenticationEntryPoint(problems))
         .exceptionHandling(e -> e.authenticationEntryPoint(problems).accessDeniedHandler(problems))
-        .addFilterBefore(new ApiKeyFilter(credentials, problems), BasicAuthenticationFilter.class)
+        .addFilterBefore(new SignInFilter(credentials, limiter, problems),
+            BasicAuthenticationFilter.class)
         .authorizeHttpRequests(a -> a
             .requestMatchers(GET, "/actuator/health", "/actuator/health/**").permitAll()
-            .requestMatchers("/api/v1/openapi", "/api/v1/openapi/**", "/api/v1/docs",
-                "/api/v1/docs/**", "/swagger-ui/**").permitAll()
+            // The OpenAPI description and its page hold no data; calls from the page sign in.
+            .requestMatchers(GET, "/api/v1/openapi", "/api/v1/openapi/**", DOCS, DOCS + "/**",
+                DOCS_FILES + "**").permitAll()
             // The pages hold no data; they call the API below with the caller's own credentials.
             .requestMatchers(GET, "/", "/answers", "/manage", "/pages/**", "/error").permitAll()
             .requestMatchers(GET, "/api/v1/me").authenticated()

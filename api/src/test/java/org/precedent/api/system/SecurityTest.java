@@ -1,9 +1,15 @@
 package org.precedent.api.system;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import com.fasterxml.jackson.databind.JsonNode;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -11,22 +17,32 @@ import java.util.stream.Stream;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.ExtendWith;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.precedent.api.testing.Browser;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.RunningService;
+import org.springframework.boot.test.system.CapturedOutput;
+import org.springframework.boot.test.system.OutputCaptureExtension;
 
-/** Every endpoint refuses callers without credentials (401) and callers of another role (403). */
+/**
+ * Every endpoint refuses callers without credentials (401) and callers of another role (403); with
+ * nothing configured the demo credentials are in force and announced; the OpenAPI page is open.
+ */
+@ExtendWith(OutputCaptureExtension.class)
 class SecurityTest {
   static RunningService service;
   static Http http;
+  static String startOutput;
 
   @BeforeAll
-  static void start() {
+  static void start(CapturedOutput output) {
     service = RunningService.start();
     http = service.http();
+    startOutput = output.getAll();
   }
 
   @AfterAll
@@ -95,6 +111,52 @@ class SecurityTest {
         assertEquals(403, r.status(), e + " as " + role.getKey());
         assertEquals("Forbidden", r.json().get("title").asText());
       }
+    }
+  }
+
+  @Test
+  void withNoCredentialsConfiguredTheDemoOnesWorkAndAreAnnounced() {
+    assertTrue(startOutput.contains("demo credentials in force"), startOutput);
+    assertEquals(200, http.get("/api/v1/threshold", Caller.MANAGER).status());
+  }
+
+  @Test
+  void theOpenApiPageIsBrowsableWithoutCredentials() throws Exception {
+    HttpClient browser = HttpClient.newBuilder().followRedirects(HttpClient.Redirect.NORMAL)
+        .build();
+    HttpResponse<String> page = browser.send(HttpRequest.newBuilder(URI.create(http.base()
+        + "/api/v1/docs")).build(), HttpResponse.BodyHandlers.ofString());
+    assertEquals(200, page.statusCode(), page.uri().toString());
+    assertTrue(page.headers().firstValue("Content-Type").orElse("").startsWith("text/html"));
+    assertTrue(page.body().contains("swagger-ui"), page.body());
+    assertTrue(page.headers().firstValue("Content-Security-Policy").orElse("")
+        .contains("script-src 'self'"));
+    Reply config = http.get("/api/v1/openapi/swagger-config", Caller.NOBODY);
+    assertEquals("/api/v1/openapi", config.json().get("url").asText());
+  }
+
+  @Test
+  void theOpenApiDescriptionSaysWhatItIsAndHowToSignIn() {
+    Reply r = http.get("/api/v1/openapi", Caller.NOBODY);
+    assertEquals(200, r.status());
+    JsonNode info = r.json().get("info");
+    assertEquals("Precedent API", info.get("title").asText());
+    assertEquals(ApiDescription.VERSION, info.get("version").asText());
+    assertTrue(info.get("description").asText().contains("hand off"), info.toString());
+    JsonNode schemes = r.json().get("components").get("securitySchemes");
+    assertEquals("X-Precedent-Key", schemes.get("apiKey").get("name").asText());
+    assertEquals("basic", schemes.get("basic").get("scheme").asText());
+    assertTrue(r.json().get("paths").has("/api/v1/decisions"));
+  }
+
+  @Test
+  void theOpenApiPageRunsUnderThePagesContentPolicy() {
+    try (Browser browser = Browser.open(http.base())) {
+      browser.go("/api/v1/docs");
+      // The title is drawn by the page's own scripts from /api/v1/openapi: they ran.
+      browser.showing(".information-container .title", "Precedent API");
+      String console = browser.console();
+      assertFalse(console.contains("Content Security Policy"), console);
     }
   }
 

@@ -5,13 +5,20 @@ import java.io.OutputStream;
 import java.nio.channels.FileChannel;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
+import java.nio.file.attribute.PosixFilePermission;
+import java.nio.file.attribute.PosixFilePermissions;
+import java.util.List;
+import java.util.Set;
 
 /**
  * Writes files so that a crash at any moment leaves either the old file or the new one, never a
  * torn one: write a temporary file beside the target, force it to disk, then rename over the target.
+ * The files it writes and the directories it makes are private to their owner (600 and 700): the
+ * data directory holds customers' questions and the audit.
  */
 public final class AtomicFiles {
   private AtomicFiles() {}
@@ -39,11 +46,10 @@ public final class AtomicFiles {
   /** Lets {@code writer} fill a temporary file beside the target, syncs it, renames it over. */
   public static void writeVia(Path target, PathWriter writer) throws IOException {
     Path dir = target.toAbsolutePath().getParent();
-    Files.createDirectories(dir);
+    createPrivateDirectories(dir);
+    // A temporary file is created owner-only (600 where permissions exist), and stays so.
     Path temp = Files.createTempFile(dir, "." + target.getFileName() + ".", ".tmp");
     try {
-      // Temporary files are created owner-only; the result is an ordinary file like any other.
-      setOrdinaryPermissions(temp);
       writer.write(temp);
       sync(temp);
       move(temp, target);
@@ -80,12 +86,70 @@ public final class AtomicFiles {
     }
   }
 
-  private static void setOrdinaryPermissions(Path file) {
-    try {
-      Files.setPosixFilePermissions(file,
-          java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--"));
-    } catch (UnsupportedOperationException | IOException e) {
-      // Not a POSIX file system: keep its default.
+  /** Creates {@code dir} and its missing parents owner-only (700). */
+  public static void createPrivateDirectories(Path dir) throws IOException {
+    if (Files.isDirectory(dir)) {
+      return;
+    }
+    if (posix(dir)) {
+      Files.createDirectories(dir, PosixFilePermissions.asFileAttribute(OWNER_DIR));
+    } else {
+      Files.createDirectories(dir);
+    }
+  }
+
+  /**
+   * Makes {@code tree} (a file, or a directory and everything in it) private to its owner:
+   * directories 700, files 600. On a file system without POSIX permissions, or where they cannot
+   * be changed, it says so once on standard error and carries on.
+   */
+  public static void makePrivate(Path tree) throws IOException {
+    if (!Files.exists(tree)) {
+      return;
+    }
+    if (!posix(tree)) {
+      warnOnce(tree, "its file system has no POSIX permissions");
+      return;
+    }
+    List<Path> all;
+    try (java.util.stream.Stream<Path> walk = Files.walk(tree)) {
+      all = walk.toList();
+    }
+    for (Path p : all) {
+      try {
+        Set<PosixFilePermission> wanted = Files.isDirectory(p, LinkOption.NOFOLLOW_LINKS)
+            ? OWNER_DIR : OWNER_FILE;
+        if (!Files.isSymbolicLink(p)
+            && !Files.getPosixFilePermissions(p, LinkOption.NOFOLLOW_LINKS).equals(wanted)) {
+          Files.setPosixFilePermissions(p, wanted);
+        }
+      } catch (java.nio.file.NoSuchFileException gone) {
+        // removed meanwhile (a temporary file)
+      } catch (java.nio.file.FileSystemException e) {
+        warnOnce(tree, "the permissions of " + p + " cannot be changed (" + e.getReason() + ")");
+        return;
+      }
+    }
+  }
+
+  private static final Set<PosixFilePermission> OWNER_DIR =
+      PosixFilePermissions.fromString("rwx------");
+  private static final Set<PosixFilePermission> OWNER_FILE =
+      PosixFilePermissions.fromString("rw-------");
+  private static final Set<Path> WARNED = java.util.concurrent.ConcurrentHashMap.newKeySet();
+
+  private static boolean posix(Path p) throws IOException {
+    Path existing = p.toAbsolutePath();
+    while (existing != null && !Files.exists(existing)) {
+      existing = existing.getParent();
+    }
+    return existing == null || Files.getFileStore(existing).supportsFileAttributeView("posix");
+  }
+
+  private static void warnOnce(Path tree, String why) {
+    if (WARNED.add(tree.toAbsolutePath())) {
+      System.err.println("precedent: warning: " + tree + " cannot be made private to its owner: "
+          + why);
     }
   }
 

@@ -20,6 +20,10 @@ import java.util.stream.Stream;
  * {@code knowledge/gen-000001}, ...; the file {@code knowledge/CURRENT} names the one in force. A
  * change builds a complete new generation, then replaces CURRENT atomically, so a crash at any
  * moment leaves the previous generation serving. Later modules keep models under {@code models/}.
+ *
+ * <p>The directory holds customers' questions and the audit, so it is kept private to its owner:
+ * it is made so when a change or the service opens it, and new files are made so as they are
+ * written ({@link AtomicFiles}).
  */
 public final class DataDir {
   private static final String GENERATION_PREFIX = "gen-";
@@ -57,9 +61,18 @@ public final class DataDir {
     }
   }
 
+  /**
+   * Creates the directory if it is missing and makes it and everything in it private to its owner
+   * (directories 700, files 600); on file systems without POSIX permissions it warns and goes on.
+   */
+  public void makePrivate() throws IOException {
+    AtomicFiles.createPrivateDirectories(root);
+    AtomicFiles.makePrivate(root);
+  }
+
   /** A fresh, empty directory for the next generation; it is not in force until activated. */
   Path newGeneration() throws IOException {
-    Files.createDirectories(knowledge());
+    AtomicFiles.createPrivateDirectories(knowledge());
     int next = generations().stream().mapToInt(DataDir::number).max().orElse(0) + 1;
     Path dir = knowledge().resolve(String.format("%s%06d", GENERATION_PREFIX, next));
     Files.createDirectory(dir);
@@ -68,6 +81,8 @@ public final class DataDir {
 
   /** Puts {@code generation} in force, then removes generations older than the one it replaces. */
   void activate(Path generation) throws IOException {
+    // Its index files come from Lucene, with the process's default permissions.
+    AtomicFiles.makePrivate(generation);
     Optional<Path> previous = currentGeneration();
     AtomicFiles.writeString(knowledge().resolve("CURRENT"), generation.getFileName() + "\n");
     for (Path old : generations()) {
@@ -92,7 +107,7 @@ public final class DataDir {
    * lock: they read whichever generation CURRENT named when they opened it.
    */
   public FileLock lock() throws IOException {
-    Files.createDirectories(root);
+    AtomicFiles.createPrivateDirectories(root);
     FileChannel channel = FileChannel.open(root.resolve(".lock"), StandardOpenOption.CREATE,
         StandardOpenOption.WRITE);
     try {
@@ -100,6 +115,12 @@ public final class DataDir {
       if (lock == null) {
         channel.close();
         throw new IOException(root + ": another Precedent process is changing this data directory");
+      }
+      try {
+        makePrivate();
+      } catch (IOException | RuntimeException e) {
+        channel.close();
+        throw e;
       }
       return lock;
     } catch (OverlappingFileLockException e) {

@@ -81,10 +81,10 @@ public final class ModelStore {
     Files.createDirectories(root);
     Path staging = Files.createTempDirectory(root, ".staging-");
     try {
-      // Temporary directories are owner-only; a model version is an ordinary directory.
+      // Temporary directories are owner-only; a model version stays so, like the whole data dir.
       try {
         Files.setPosixFilePermissions(staging,
-            java.nio.file.attribute.PosixFilePermissions.fromString("rwxr-xr-x"));
+            java.nio.file.attribute.PosixFilePermissions.fromString("rwx------"));
       } catch (UnsupportedOperationException e) {
         // not a POSIX file system: keep its default
       }
