@@ -81,6 +81,15 @@ class ErrorAdvice extends ResponseEntityExceptionHandler {
     return p;
   }
 
+  @ExceptionHandler(DecisionSlots.Busy.class)
+  ResponseEntity<ProblemDetail> busy(DecisionSlots.Busy e) {
+    ProblemDetail p = ProblemDetail.forStatusAndDetail(HttpStatus.SERVICE_UNAVAILABLE,
+        e.getMessage() + "; try again in " + e.retryAfterSeconds() + " s");
+    p.setTitle("Busy");
+    return ResponseEntity.status(HttpStatus.SERVICE_UNAVAILABLE)
+        .header(HttpHeaders.RETRY_AFTER, String.valueOf(e.retryAfterSeconds())).body(p);
+  }
+
   @ExceptionHandler(org.precedent.engine.rerank.ModelLoadException.class)
   ProblemDetail modelUnusable(org.precedent.engine.rerank.ModelLoadException e) {
     ProblemDetail p = ProblemDetail.forStatusAndDetail(HttpStatus.UNPROCESSABLE_ENTITY,
