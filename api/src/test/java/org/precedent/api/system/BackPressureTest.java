@@ -5,6 +5,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
 
 import com.fasterxml.jackson.databind.JsonNode;
+import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -12,9 +14,12 @@ import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.precedent.api.cli.PrecedentCommand;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
@@ -135,6 +140,21 @@ class BackPressureTest {
     assertEquals(8, answered);
     assertEquals(before + 8, metric("precedent.decisions.run", ""));
     assertEquals(1.0, metric("executor.pool.max", "?tag=name:decisions"));
+  }
+
+  @Test
+  void theServiceBenchmarkCountsRefusalsApartFromErrors() {
+    StringWriter out = new StringWriter();
+    StringWriter err = new StringWriter();
+    int status = PrecedentCommand.run(new PrintWriter(out, true), new PrintWriter(err, true),
+        "benchmark", "service", "--url", http.base(), "--clients", "8", "--seconds", "2");
+    // Refusals are the service protecting itself, not failures: the run succeeds.
+    assertEquals(0, status, out + "\n" + err);
+    Matcher refused = Pattern.compile("refused as busy \\(503/429\\): ([0-9,]+)")
+        .matcher(out.toString());
+    assertTrue(refused.find(), out.toString());
+    assertTrue(Integer.parseInt(refused.group(1).replace(",", "")) > 0, out.toString());
+    assertTrue(out.toString().contains("errors: 0 "), out.toString());
   }
 
   /** The first measurement of a metric (a count, for a timer). */
