@@ -17,7 +17,6 @@ import java.util.concurrent.Callable;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicLong;
 import org.precedent.api.demo.DemoTicket;
 import org.precedent.api.demo.DemoTicketGenerator;
 import org.precedent.api.system.PrecedentServer;
@@ -30,12 +29,17 @@ import picocli.CommandLine.Spec;
 
 @Command(name = "service", mixinStandardHelpOptions = true,
     description = {"Measures the service's decision throughput and latency under load.",
-        "It starts the service on the data directory's active model (loopback, a free port) and "
-            + "drives N concurrent clients against the decision endpoint for a bounded time, then "
-            + "reports throughput, latency p50/p99 and errors. Questions are generated demo-style "
-            + "tickets. Then it times failed sign-ins for a known and an unknown user name."})
+        "It starts the service on the data directory's active model (loopback, a free port), or "
+            + "uses the one at --url, and drives N concurrent clients against the decision "
+            + "endpoint for a bounded time, then reports throughput, latency p50/p99, and "
+            + "refusals (503/429: the service was busy and said when to come back; a client waits "
+            + "that long, as a caller should) apart from errors. Questions are generated "
+            + "demo-style tickets. On a service it starts, it then times failed sign-ins for a "
+            + "known and an unknown user name."})
 final class ServiceBenchmark implements Callable<Integer> {
   private static final String KEY = "bench-agent-key";
+  /** Longest a client waits on a Retry-After, so a bad header cannot stall the run. */
+  private static final long MOST_BACKOFF_MS = 10_000;
 
   @ParentCommand
   BenchmarkCommand benchmark;
@@ -53,87 +57,153 @@ final class ServiceBenchmark implements Callable<Integer> {
 
   @Option(names = "--guessers", paramLabel = "N", defaultValue = "0",
       description = "Clients guessing passwords (each from its own loopback address) during the "
-          + "measured load (default ${DEFAULT-VALUE}).")
+          + "measured load, on a service started here (default ${DEFAULT-VALUE}).")
   int guessers;
+
+  @Option(names = "--url", paramLabel = "URL",
+      description = "A running service to drive (such as http://127.0.0.1:8080) instead of one "
+          + "started here; its process can then be measured on its own.")
+  URI url;
+
+  @Option(names = "--key", paramLabel = "KEY", defaultValue = "demo-agent-key",
+      description = "API key of an agent on the service at --url (default ${DEFAULT-VALUE}).")
+  String key;
 
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    // The data directory of --data: one with a trained model, such as the demo's.
-    Path data = benchmark.parent.dataDir();
-    NumericLibrary.announce(spec.commandLine().getErr());
-    List<String> settings = new ArrayList<>(List.of("--precedent.security.keys=bench:" + KEY
-        + ":agent"));
-    settings.addAll(SignInBenchmark.settings(java.util.UUID.randomUUID().toString()));
-    ConfigurableApplicationContext context = PrecedentServer.start(data, 0, settings);
+    if (clients < 1 || seconds < 1) {
+      throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+          "--clients and --seconds must be at least 1");
+    }
+    if (url != null && guessers > 0) {
+      throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+          "--guessers needs a service started here, not one at --url");
+    }
+    ConfigurableApplicationContext context = null;
+    SignInBenchmark signIn = null;
+    URI base = url;
+    String apiKey = key;
+    if (base == null) {
+      // The data directory of --data: one with a trained model, such as the demo's.
+      Path data = benchmark.parent.dataDir();
+      NumericLibrary.announce(spec.commandLine().getErr());
+      List<String> settings = new ArrayList<>(List.of("--precedent.security.keys=bench:" + KEY
+          + ":agent"));
+      settings.addAll(SignInBenchmark.settings(java.util.UUID.randomUUID().toString()));
+      context = PrecedentServer.start(data, 0, settings);
+      base = URI.create("http://127.0.0.1:" + PrecedentServer.port(context));
+      apiKey = KEY;
+      signIn = new SignInBenchmark(PrecedentServer.port(context));
+    }
     try {
-      SignInBenchmark signIn = new SignInBenchmark(PrecedentServer.port(context));
-      URI uri = URI.create("http://127.0.0.1:" + PrecedentServer.port(context)
-          + "/api/v1/decisions");
+      URI uri = base.resolve("/api/v1/decisions");
       ObjectMapper json = new ObjectMapper();
       List<String> bodies = new ArrayList<>();
       for (DemoTicket t : DemoTicketGenerator.generate(500, 99L)) {
         bodies.add(json.writeValueAsString(Map.of("question", t.subject() + "\n" + t.body())));
       }
       HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
-      drive(http, uri, bodies, 5);
-      SignInBenchmark.Guessing guessing = signIn.guess(guessers,
+      drive(http, uri, apiKey, bodies, 5);
+      SignInBenchmark.Guessing guessing = signIn == null ? null : signIn.guess(guessers,
           System.nanoTime() + seconds * 1_000_000_000L);
-      Result r = drive(http, uri, bodies, seconds);
-      long[] nanos = r.nanos();
-      Arrays.sort(nanos);
+      Tally r = drive(http, uri, apiKey, bodies, seconds);
+      long[] ok = sorted(r.ok());
+      long[] refused = sorted(r.refused());
+      long answered = ok.length + refused.length + r.errors();
       out.printf(Locale.ROOT, "machine: %d cores; %d clients for %d s over loopback%n",
           Runtime.getRuntime().availableProcessors(), clients, seconds);
-      out.printf(Locale.ROOT, "decisions: %,d ok, %,d errors; %.1f per second; p50 %.1f ms, "
-              + "p99 %.1f ms, max %.1f ms%n", nanos.length, r.errors(), nanos.length / (double) seconds,
-          percentile(nanos, 0.50) / 1e6, percentile(nanos, 0.99) / 1e6,
-          nanos.length == 0 ? 0 : nanos[nanos.length - 1] / 1e6);
-      guessing.report(out);
-      signIn.failureLatency(out, 100);
+      out.printf(Locale.ROOT, "decisions: %,d ok, %.1f per second; p50 %.1f ms, p99 %.1f ms, "
+              + "max %.1f ms%n", ok.length, ok.length / (double) seconds,
+          percentile(ok, 0.50) / 1e6, percentile(ok, 0.99) / 1e6,
+          ok.length == 0 ? 0 : ok[ok.length - 1] / 1e6);
+      out.printf(Locale.ROOT, "refused as busy (503/429): %,d, %.1f%% of requests; p50 %.1f ms, "
+              + "p99 %.1f ms to the refusal%n", refused.length,
+          answered == 0 ? 0 : 100.0 * refused.length / answered, percentile(refused, 0.50) / 1e6,
+          percentile(refused, 0.99) / 1e6);
+      out.printf(Locale.ROOT, "errors: %,d (other statuses, time-outs, broken connections)%n",
+          r.errors());
+      if (signIn != null) {
+        guessing.report(out);
+        signIn.failureLatency(out, 100);
+      }
       return r.errors() == 0 ? 0 : PrecedentCommand.FAILED;
     } finally {
-      context.close();
+      if (context != null) {
+        context.close();
+      }
     }
   }
 
-  private record Result(long[] nanos, long errors) {}
+  /** What the clients saw: times of decisions, times of refusals, and the count of errors. */
+  private record Tally(List<Long> ok, List<Long> refused, long errors) {}
 
   /** Each client sends one request after another until the time is up; the loop is bounded. */
-  private Result drive(HttpClient http, URI uri, List<String> bodies, int forSeconds)
-      throws Exception {
+  private Tally drive(HttpClient http, URI uri, String apiKey, List<String> bodies,
+      int forSeconds) throws Exception {
     long end = System.nanoTime() + forSeconds * 1_000_000_000L;
-    AtomicLong errors = new AtomicLong();
     ExecutorService pool = Executors.newFixedThreadPool(clients);
-    List<Future<List<Long>>> futures = new ArrayList<>();
+    List<Future<Tally>> futures = new ArrayList<>();
     for (int c = 0; c < clients; c++) {
       int client = c;
       futures.add(pool.submit(() -> {
-        List<Long> times = new ArrayList<>();
+        List<Long> ok = new ArrayList<>();
+        List<Long> refused = new ArrayList<>();
+        long errors = 0;
         for (int i = client; System.nanoTime() < end && i < 1_000_000; i += clients) {
           HttpRequest request = HttpRequest.newBuilder(uri).timeout(Duration.ofSeconds(30))
-              .header("Content-Type", "application/json").header("X-Precedent-Key", KEY)
+              .header("Content-Type", "application/json").header("X-Precedent-Key", apiKey)
               .POST(HttpRequest.BodyPublishers.ofString(bodies.get(i % bodies.size()))).build();
           long t0 = System.nanoTime();
           try {
             HttpResponse<String> response = http.send(request, HttpResponse.BodyHandlers.ofString());
+            long took = System.nanoTime() - t0;
             if (response.statusCode() == 200) {
-              times.add(System.nanoTime() - t0);
+              ok.add(took);
+            } else if (response.statusCode() == 503 || response.statusCode() == 429) {
+              refused.add(took);
+              backOff(response, end);
             } else {
-              errors.incrementAndGet();
+              errors++;
             }
           } catch (java.io.IOException e) {
-            errors.incrementAndGet();
+            errors++;
           }
         }
-        return times;
+        return new Tally(ok, refused, errors);
       }));
     }
-    List<Long> all = new ArrayList<>();
-    for (Future<List<Long>> f : futures) {
-      all.addAll(f.get());
+    List<Long> ok = new ArrayList<>();
+    List<Long> refused = new ArrayList<>();
+    long errors = 0;
+    for (Future<Tally> f : futures) {
+      Tally t = f.get();
+      ok.addAll(t.ok());
+      refused.addAll(t.refused());
+      errors += t.errors();
     }
     pool.shutdown();
-    return new Result(all.stream().mapToLong(Long::longValue).toArray(), errors.get());
+    return new Tally(ok, refused, errors);
+  }
+
+  /** Waits as long as Retry-After says (whole seconds), but not past the end of the run. */
+  private static void backOff(HttpResponse<String> response, long end)
+      throws InterruptedException {
+    long ms = response.headers().firstValue("Retry-After").map(v -> {
+      try {
+        return Long.parseLong(v.strip()) * 1000;
+      } catch (NumberFormatException e) {
+        return 1000L;
+      }
+    }).orElse(1000L);
+    long left = (end - System.nanoTime()) / 1_000_000;
+    Thread.sleep(Math.max(0, Math.min(Math.min(ms, MOST_BACKOFF_MS), left)));
+  }
+
+  private static long[] sorted(List<Long> nanos) {
+    long[] a = nanos.stream().mapToLong(Long::longValue).toArray();
+    Arrays.sort(a);
+    return a;
   }
 
   private static long percentile(long[] sorted, double p) {

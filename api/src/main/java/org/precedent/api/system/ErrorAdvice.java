@@ -1,7 +1,5 @@
 package org.precedent.api.system;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.databind.JsonMappingException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -57,22 +55,20 @@ class ErrorAdvice extends ResponseEntityExceptionHandler {
         return ResponseEntity.status(HttpStatus.PAYLOAD_TOO_LARGE).body(p);
       }
     }
-    String detail = "the request body is not the JSON expected";
     ProblemDetail p = ProblemDetail.forStatus(HttpStatus.BAD_REQUEST);
     p.setTitle("Unreadable request");
-    if (e.getCause() instanceof JsonMappingException m && !m.getPath().isEmpty()) {
-      String field = m.getPath().stream().map(r -> r.getFieldName() != null ? r.getFieldName()
-          : "[" + r.getIndex() + "]").collect(Collectors.joining("."));
-      detail = field + ": " + m.getOriginalMessage().split("\n")[0];
-      p.setProperty("errors", List.of(Map.of("field", field, "message",
-          m.getOriginalMessage().split("\n")[0])));
-    } else if (e.getCause() instanceof JsonProcessingException j && j.getLocation() != null) {
-      detail = "the request body is not valid JSON at line " + j.getLocation().getLineNr()
-          + ", column " + j.getLocation().getColumnNr() + ": " + j.getOriginalMessage().split("\n")[0];
+    BodyProblem problem = BodyProblem.of(e);
+    if (problem != null && problem.field() != null) {
+      p.setDetail(problem.field() + ": " + problem.message());
+      p.setProperty("errors", List.of(Map.of("field", problem.field(), "message",
+          problem.message())));
+    } else if (problem != null) {
+      p.setDetail(problem.message());
     } else if (e.getMessage() != null && e.getMessage().startsWith("Required request body")) {
-      detail = "the request has no body; send a JSON object";
+      p.setDetail("the request has no body; send a JSON object");
+    } else {
+      p.setDetail("the request body is not the JSON expected");
     }
-    p.setDetail(detail);
     return ResponseEntity.badRequest().body(p);
   }
 
@@ -83,6 +79,15 @@ class ErrorAdvice extends ResponseEntityExceptionHandler {
     p.setTitle("Invalid request");
     p.setProperty("errors", List.of(Map.of("field", e.field(), "message", e.getMessage())));
     return p;
+  }
+
+  @ExceptionHandler(DecisionSlots.Busy.class)
+  ResponseEntity<ProblemDetail> busy(DecisionSlots.Busy e) {
+    ProblemDetail p = ProblemDetail.forStatusAndDetail(HttpStatus.SERVICE_UNAVAILABLE,
+        e.getMessage() + "; try again in " + e.retryAfterSeconds() + " s");
+    p.setTitle("Busy");
+    return ResponseEntity.status(HttpStatus.SERVICE_UNAVAILABLE)
+        .header(HttpHeaders.RETRY_AFTER, String.valueOf(e.retryAfterSeconds())).body(p);
   }
 
   @ExceptionHandler(org.precedent.engine.rerank.ModelLoadException.class)
