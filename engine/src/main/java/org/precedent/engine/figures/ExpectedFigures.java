@@ -1,14 +1,9 @@
 package org.precedent.engine.figures;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.text.DecimalFormat;
 import java.util.ArrayList;
@@ -19,7 +14,6 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import java.util.regex.Pattern;
-import org.precedent.knowledge.store.AtomicFiles;
 
 /**
  * The figures a measured run is expected to reproduce, each with the tolerance it may move by: the
@@ -39,7 +33,6 @@ import org.precedent.knowledge.store.AtomicFiles;
  */
 public record ExpectedFigures(String about, Map<String, String> measuredWith, List<Figure> figures) {
   private static final Pattern NAME = Pattern.compile("[a-z0-9_]+(\\.[a-z0-9_]+)*");
-  private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
   /**
    * One expected figure.
@@ -110,18 +103,11 @@ public record ExpectedFigures(String about, Map<String, String> measuredWith, Li
 
   /** Reads the file; a malformed one is an {@link IOException} naming the file and the figure. */
   public static ExpectedFigures load(Path file) throws IOException {
-    JsonNode root;
-    try {
-      root = JSON.readTree(Files.readString(file, StandardCharsets.UTF_8));
-    } catch (JsonProcessingException e) {
-      throw new IOException(file + ": not valid JSON (line " + e.getLocation().getLineNr() + "): "
-          + e.getOriginalMessage(), e);
-    }
+    JsonNode root = FigureFiles.read(file);
     if (root == null || !root.isObject() || !root.path("figures").isArray()) {
       throw new IOException(file + ": expected an object with a 'figures' list");
     }
-    Map<String, String> measuredWith = new LinkedHashMap<>();
-    root.path("measuredWith").fields().forEachRemaining(e -> measuredWith.put(e.getKey(), e.getValue().asText()));
+    Map<String, String> measuredWith = FigureFiles.measuredWith(root);
     List<Figure> figures = new ArrayList<>();
     int index = 0;
     for (JsonNode f : root.path("figures")) {
@@ -154,7 +140,7 @@ public record ExpectedFigures(String about, Map<String, String> measuredWith, Li
 
   /** Writes the file atomically, in the layout {@link #load} reads. */
   public void save(Path file) throws IOException {
-    ObjectNode root = JSON.createObjectNode();
+    ObjectNode root = FigureFiles.JSON.createObjectNode();
     root.put("about", about);
     ObjectNode with = root.putObject("measuredWith");
     measuredWith.forEach(with::put);
@@ -171,6 +157,6 @@ public record ExpectedFigures(String about, Map<String, String> measuredWith, Li
       o.put("tolerance", f.tolerance());
       o.put("format", f.format());
     }
-    AtomicFiles.writeString(file, JSON.writeValueAsString(root) + "\n");
+    FigureFiles.write(file, root);
   }
 }

@@ -1,13 +1,8 @@
 package org.precedent.engine.figures;
 
-import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -19,7 +14,6 @@ import org.precedent.engine.evaluate.Measures;
 import org.precedent.engine.evaluate.SystemReport;
 import org.precedent.engine.measure.ThresholdRecommendation;
 import org.precedent.engine.rerank.TrainingMetrics;
-import org.precedent.knowledge.store.AtomicFiles;
 
 /**
  * The figures of one measured run under the names {@link ExpectedFigures} uses, and the file they
@@ -37,7 +31,6 @@ import org.precedent.knowledge.store.AtomicFiles;
  * @param figures      name to value, NaN for an undefined figure
  */
 public record MeasuredFigures(Map<String, String> measuredWith, Map<String, Double> figures) {
-  private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
   public MeasuredFigures {
     measuredWith = Collections.unmodifiableMap(new LinkedHashMap<>(measuredWith));
@@ -92,7 +85,7 @@ public record MeasuredFigures(Map<String, String> measuredWith, Map<String, Doub
   }
 
   public void save(Path file) throws IOException {
-    ObjectNode root = JSON.createObjectNode();
+    ObjectNode root = FigureFiles.JSON.createObjectNode();
     ObjectNode with = root.putObject("measuredWith");
     measuredWith.forEach(with::put);
     ObjectNode values = root.putObject("figures");
@@ -103,23 +96,16 @@ public record MeasuredFigures(Map<String, String> measuredWith, Map<String, Doub
         values.put(name, v);
       }
     });
-    AtomicFiles.writeString(file, JSON.writeValueAsString(root) + "\n");
+    FigureFiles.write(file, root);
   }
 
   /** Reads {@link #save}'s file; null values come back as NaN. */
   public static MeasuredFigures load(Path file) throws IOException {
-    JsonNode root;
-    try {
-      root = JSON.readTree(Files.readString(file, StandardCharsets.UTF_8));
-    } catch (JsonProcessingException e) {
-      throw new IOException(file + ": not valid JSON (line " + e.getLocation().getLineNr() + "): "
-          + e.getOriginalMessage(), e);
-    }
+    JsonNode root = FigureFiles.read(file);
     if (root == null || !root.path("figures").isObject()) {
       throw new IOException(file + ": expected an object with a 'figures' object");
     }
-    Map<String, String> with = new LinkedHashMap<>();
-    root.path("measuredWith").fields().forEachRemaining(e -> with.put(e.getKey(), e.getValue().asText()));
+    Map<String, String> with = FigureFiles.measuredWith(root);
     Map<String, Double> figures = new LinkedHashMap<>();
     var fields = root.get("figures").fields();
     while (fields.hasNext()) {
