@@ -112,6 +112,7 @@ final class FiguresCommand implements Callable<Integer> {
     }
     List<FigureCheck.Row> rows = FigureCheck.compare(expectedFigures, figures.figures());
     out.print(FigureCheck.table(rows));
+    out.flush();
 
     if (record) {
       expectedFigures = expectedFigures.recorded(figures.figures(), figures.measuredWith());
