@@ -8,6 +8,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.precedent.engine.decide.FusionModel;
@@ -30,6 +31,7 @@ import org.precedent.knowledge.ticket.Ticket;
  * grouping, splits, reranker, fusion and calibration come out the same, bit for bit (wall-clock
  * figures aside).
  */
+@Tag("slow")
 class TeamModelDeterminismTest {
   private static final int TICKETS = 400;
 
