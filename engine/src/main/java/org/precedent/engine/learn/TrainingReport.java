@@ -13,10 +13,11 @@ import org.precedent.engine.rerank.TrainingMetrics;
 public record TrainingReport(String version, TrainingMetrics reranker, String fusionSummary) {
   public String summary() {
     return String.format(Locale.ROOT, "reranker: %d pairs trained, %d validation, %d epochs in %.0f s, "
-            + "%.0f target tokens/s, validation loss %.3f, anti-LM lambda %.1f, validation top-1 %.3f%n%s",
+            + "%.0f target tokens/s, validation loss %.3f, anti-LM lambda %.1f, validation top-1 %.3f, "
+            + "ND4J %s%n%s",
         reranker.trainPairs(), reranker.validationPairs(), reranker.epochs(),
         reranker.trainingMillis() / 1000.0, reranker.targetTokensPerSecond(),
         reranker.validationLoss(), reranker.antiLmLambda(), reranker.validationTop1(),
-        fusionSummary);
+        reranker.computeThreads(), fusionSummary);
   }
 }

@@ -13,7 +13,9 @@ package org.precedent.engine.rerank;
  * @param trainPairs            pairs trained on
  * @param validationPairs       pairs held out
  * @param vocabularySize        tokens in the vocabulary, reserved ones included
+ * @param computeThreads        ND4J's thread counts during training: the same data, settings and machine
+ *                              give the same weights only with the same counts
  */
 public record TrainingMetrics(double trainLoss, double validationLoss, int epochs, long trainingMillis,
     double targetTokensPerSecond, double antiLmLambda, double validationTop1, int trainPairs, int validationPairs,
-    int vocabularySize) {}
+    int vocabularySize, ComputeThreads computeThreads) {}

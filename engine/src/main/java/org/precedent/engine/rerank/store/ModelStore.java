@@ -24,6 +24,7 @@ import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.TrainedReranker;
+import org.precedent.engine.rerank.TrainingMetrics;
 import org.precedent.knowledge.store.AtomicFiles;
 import org.precedent.engine.rerank.tokens.Vocabulary;
 
@@ -142,6 +143,28 @@ public final class ModelStore {
     }
     var node = new ObjectMapper().readTree(metrics.toFile()).get("dataSha256");
     return node == null ? Optional.empty() : Optional.of(node.asText());
+  }
+
+  /**
+   * The training figures a version was saved with; empty when it has none. Versions saved before the
+   * thread counts were recorded give a null {@link TrainingMetrics#computeThreads()}.
+   */
+  public Optional<TrainingMetrics> trainingMetrics(String version) throws IOException {
+    Path metrics = directory(version).resolve(METRICS);
+    if (!Files.isRegularFile(metrics)) {
+      return Optional.empty();
+    }
+    var node = new ObjectMapper().readTree(metrics.toFile()).get("metrics");
+    if (node == null) {
+      return Optional.empty();
+    }
+    try {
+      return Optional.of(new ObjectMapper()
+          .disable(com.fasterxml.jackson.databind.DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
+          .treeToValue(node, TrainingMetrics.class));
+    } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+      throw new IOException(metrics + ": unreadable training metrics: " + e.getOriginalMessage(), e);
+    }
   }
 
   public Path directory(String version) {

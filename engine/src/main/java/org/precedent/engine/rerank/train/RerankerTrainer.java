@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.function.Consumer;
 import org.deeplearning4j.nn.graph.ComputationGraph;
 import org.nd4j.linalg.api.ndarray.INDArray;
+import org.precedent.engine.rerank.ComputeThreads;
 import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.RerankerModel;
@@ -84,6 +85,7 @@ public final class RerankerTrainer {
 
   private TrainedReranker run(List<TrainingPair> pairs, boolean resume) throws IOException {
     String fingerprint = DataFingerprint.of(pairs);
+    ComputeThreads threads = ComputeThreads.current();
     EpochPlan.Split split = EpochPlan.split(pairs, config);
     Checkpoints checkpoints = new Checkpoints(workDir);
     Vocabulary vocabulary;
@@ -97,13 +99,20 @@ public final class RerankerTrainer {
       if (!checkpoints.loadConfig().equals(config)) {
         throw new ModelLoadException("the checkpoint in " + workDir + " was made with other settings");
       }
+      if (!state.computeThreads().isEmpty() && !state.computeThreads().equals(threads.toText())) {
+        ComputeThreads began = ComputeThreads.fromText(state.computeThreads());
+        throw new ModelLoadException("the checkpoint in " + workDir + " was made with " + began
+            + " of ND4J and this process has " + threads + ": resuming would not end on the model an"
+            + " uninterrupted run gives; resume with OMP_NUM_THREADS=" + began.operations()
+            + " or train afresh");
+      }
       vocabulary = checkpoints.loadVocabulary();
       graph = checkpoints.loadModel(state, true);
     } else {
       vocabulary = buildVocabulary(split.train());
       checkpoints.begin(config, vocabulary);
       graph = Seq2SeqReranker.create(config, vocabulary.size());
-      state = TrainingState.start(fingerprint);
+      state = TrainingState.start(fingerprint, threads.toText());
     }
     PairCodec codec = new PairCodec(new Tokenizer(), vocabulary, config.maxQuestionTokens(), config.maxAnswerTokens());
     Encoded train = Encoded.of(split.train(), codec);
@@ -119,7 +128,7 @@ public final class RerankerTrainer {
     TrainingMetrics metrics = new TrainingMetrics(last.epochTokens() == 0 ? Double.NaN
         : last.epochLossSum() / last.epochTokens(), last.bestValidationLoss(), last.epoch(), last.trainingMillis(),
         seconds > 0 ? last.trainedTokens() / seconds : 0, choice.lambda(), choice.top1(), split.train().size(),
-        split.validation().size(), vocabulary.size());
+        split.validation().size(), vocabulary.size(), threads);
     return new TrainedReranker(model.withAntiLmLambda(choice.lambda()), metrics, fingerprint);
   }
 
@@ -178,6 +187,7 @@ public final class RerankerTrainer {
     private int runBatches;
     private boolean finished;
     private final String fingerprint;
+    private final String computeThreads;
 
     Loop(ComputationGraph graph, Checkpoints checkpoints, EpochPlan plan, Encoded train, Encoded validation,
         TrainingState s) {
@@ -197,6 +207,7 @@ public final class RerankerTrainer {
       millisBefore = s.trainingMillis();
       finished = s.finished();
       fingerprint = s.dataFingerprint();
+      computeThreads = s.computeThreads();
     }
 
     TrainingState run() throws IOException {
@@ -244,7 +255,7 @@ public final class RerankerTrainer {
     private TrainingState state() {
       long millis = millisBefore + (System.nanoTime() - started) / 1_000_000;
       return new TrainingState(epoch, nextBatch, best, withoutGain, lastValidation, epochLossSum, epochTokens,
-          trainedTokens, millis, finished, fingerprint, "", "");
+          trainedTokens, millis, finished, fingerprint, "", "", computeThreads);
     }
 
     private double validationLoss() {

@@ -9,18 +9,23 @@ import java.util.Properties;
  * Where training stopped, enough to continue exactly: the next batch of which epoch (each epoch's order
  * comes from the seed and the epoch number, so it can be rebuilt), the early-stopping counters, and the
  * running sums behind the reported figures.
+ *
+ * <p>{@code computeThreads} are ND4J's thread counts when the run began ({@code ComputeThreads#toText});
+ * empty in checkpoints written before they were recorded.
  */
 record TrainingState(int epoch, int nextBatch, double bestValidationLoss, int epochsWithoutGain,
     double lastValidationLoss, double epochLossSum, long epochTokens, long trainedTokens, long trainingMillis,
-    boolean finished, String dataFingerprint, String modelFile, String modelSha256) {
+    boolean finished, String dataFingerprint, String modelFile, String modelSha256, String computeThreads) {
 
-  static TrainingState start(String fingerprint) {
-    return new TrainingState(0, 0, Double.POSITIVE_INFINITY, 0, Double.NaN, 0, 0, 0, 0, false, fingerprint, "", "");
+  static TrainingState start(String fingerprint, String computeThreads) {
+    return new TrainingState(0, 0, Double.POSITIVE_INFINITY, 0, Double.NaN, 0, 0, 0, 0, false, fingerprint, "", "",
+        computeThreads);
   }
 
   TrainingState withModel(String file, String sha256) {
     return new TrainingState(epoch, nextBatch, bestValidationLoss, epochsWithoutGain, lastValidationLoss,
-        epochLossSum, epochTokens, trainedTokens, trainingMillis, finished, dataFingerprint, file, sha256);
+        epochLossSum, epochTokens, trainedTokens, trainingMillis, finished, dataFingerprint, file, sha256,
+        computeThreads);
   }
 
   String toProperties() {
@@ -38,6 +43,7 @@ record TrainingState(int epoch, int nextBatch, double bestValidationLoss, int ep
     p.setProperty("dataFingerprint", dataFingerprint);
     p.setProperty("modelFile", modelFile);
     p.setProperty("modelSha256", modelSha256);
+    p.setProperty("computeThreads", computeThreads);
     StringWriter out = new StringWriter();
     try {
       p.store(out, "reranker training checkpoint");
@@ -56,7 +62,8 @@ record TrainingState(int epoch, int nextBatch, double bestValidationLoss, int ep
           Double.parseDouble(get(p, "lastValidationLoss")), Double.parseDouble(get(p, "epochLossSum")),
           Long.parseLong(get(p, "epochTokens")), Long.parseLong(get(p, "trainedTokens")),
           Long.parseLong(get(p, "trainingMillis")), Boolean.parseBoolean(get(p, "finished")),
-          get(p, "dataFingerprint"), get(p, "modelFile"), get(p, "modelSha256"));
+          get(p, "dataFingerprint"), get(p, "modelFile"), get(p, "modelSha256"),
+          p.getProperty("computeThreads", ""));
     } catch (NumberFormatException e) {
       throw new IOException("checkpoint state has a bad number: " + e.getMessage(), e);
     }

@@ -44,6 +44,10 @@ class ModelStoreTest {
     JsonNode metrics = new ObjectMapper().readTree(root.resolve(version).resolve(ModelStore.METRICS).toFile());
     assertEquals(trained.dataFingerprint(), metrics.get("dataSha256").asText());
     assertEquals(trained.metrics().epochs(), metrics.get("metrics").get("epochs").asInt());
+    // Read back whole, thread counts included: they are part of what made these weights.
+    assertEquals(trained.metrics(), store.trainingMetrics(version).orElseThrow());
+    assertEquals(trained.metrics().computeThreads().blas(),
+        metrics.get("metrics").get("computeThreads").get("blas").asInt());
   }
 
   @Test
