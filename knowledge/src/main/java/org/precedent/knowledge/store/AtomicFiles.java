@@ -100,8 +100,9 @@ public final class AtomicFiles {
 
   /**
    * Makes {@code tree} (a file, or a directory and everything in it) private to its owner:
-   * directories 700, files 600. On a file system without POSIX permissions, or where they cannot
-   * be changed, it says so once on standard error and carries on.
+   * no access for group or others (700 and 600 for what its owner may read and write; what the
+   * owner made read-only stays read-only). On a file system without POSIX permissions, or where
+   * they cannot be changed, it says so once on standard error and carries on.
    */
   public static void makePrivate(Path tree) throws IOException {
     if (!Files.exists(tree)) {
@@ -117,11 +118,15 @@ public final class AtomicFiles {
     }
     for (Path p : all) {
       try {
-        Set<PosixFilePermission> wanted = Files.isDirectory(p, LinkOption.NOFOLLOW_LINKS)
-            ? OWNER_DIR : OWNER_FILE;
-        if (!Files.isSymbolicLink(p)
-            && !Files.getPosixFilePermissions(p, LinkOption.NOFOLLOW_LINKS).equals(wanted)) {
-          Files.setPosixFilePermissions(p, wanted);
+        if (!Files.isSymbolicLink(p)) {
+          // Only group and other access is taken away: a file its owner made read-only stays so.
+          Set<PosixFilePermission> now = Files.getPosixFilePermissions(p, LinkOption.NOFOLLOW_LINKS);
+          Set<PosixFilePermission> wanted = java.util.EnumSet.noneOf(PosixFilePermission.class);
+          wanted.addAll(now);
+          wanted.retainAll(OWNER_DIR);
+          if (!wanted.equals(now)) {
+            Files.setPosixFilePermissions(p, wanted);
+          }
         }
       } catch (java.nio.file.NoSuchFileException gone) {
         // removed meanwhile (a temporary file)
@@ -134,8 +139,6 @@ public final class AtomicFiles {
 
   private static final Set<PosixFilePermission> OWNER_DIR =
       PosixFilePermissions.fromString("rwx------");
-  private static final Set<PosixFilePermission> OWNER_FILE =
-      PosixFilePermissions.fromString("rw-------");
   private static final Set<Path> WARNED = java.util.concurrent.ConcurrentHashMap.newKeySet();
 
   private static boolean posix(Path p) throws IOException {
