@@ -16,13 +16,12 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.RegisterExtension;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
-import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.ServiceForClass;
 import org.precedent.api.testing.TrainedData;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.rerank.RerankerConfig;
@@ -31,22 +30,15 @@ import org.precedent.knowledge.store.Knowledge;
 
 /** Switching model versions: audited, persisted, and invisible to requests in flight. */
 class ModelSwapTest {
-  static RunningService service;
-  static Http http;
+  @RegisterExtension
+  static final ServiceForClass service = new ServiceForClass();
 
-  @BeforeAll
-  static void start() {
-    service = RunningService.start();
-    http = service.http();
-  }
-
-  @AfterAll
-  static void stop() {
-    service.close();
+  private static Http http() {
+    return service.http();
   }
 
   private static String active() {
-    return http.get("/api/v1/models", Caller.MANAGER).json().get("active").asText();
+    return http().get("/api/v1/models", Caller.MANAGER).json().get("active").asText();
   }
 
   @Test
@@ -62,7 +54,7 @@ class ModelSwapTest {
       int first = t;
       callers.submit(() -> {
         for (int i = first; !stop.get(); i++) {
-          Reply r = http.post("/api/v1/decisions", Map.of("question",
+          Reply r = http().post("/api/v1/decisions", Map.of("question",
               questions[i % questions.length]), Caller.AGENT);
           if (r.status() == 200) {
             ok.incrementAndGet();
@@ -75,7 +67,7 @@ class ModelSwapTest {
     }
     for (int swap = 0; swap < 6; swap++) {
       String to = swap % 2 == 0 ? "v-0002" : "v-0001";
-      Reply r = http.post("/api/v1/models/" + to + "/activation",
+      Reply r = http().post("/api/v1/models/" + to + "/activation",
           Map.of("reason", "swap " + swap + " under load"), Caller.MANAGER);
       assertEquals(200, r.status(), r.raw().body());
       Thread.sleep(300);
@@ -92,15 +84,15 @@ class ModelSwapTest {
   void rollbackReturnsToThePreviousVersionAndBothAreAudited() throws Exception {
     String start = active();
     String other = start.equals("v-0001") ? "v-0002" : "v-0001";
-    assertEquals(200, http.post("/api/v1/models/" + other + "/activation",
+    assertEquals(200, http().post("/api/v1/models/" + other + "/activation",
         Map.of("reason", "try the other one"), Caller.MANAGER).status());
     assertEquals(other, active());
     assertEquals(other, Files.readString(service.data().resolve("models/ACTIVE")).strip());
-    Reply back = http.post("/api/v1/models/rollback", Map.of("reason", "worse"), Caller.MANAGER);
+    Reply back = http().post("/api/v1/models/rollback", Map.of("reason", "worse"), Caller.MANAGER);
     assertEquals(200, back.status(), back.raw().body());
     assertEquals(start, back.json().get("active").asText());
     assertEquals(start, active());
-    var activations = http.get("/api/v1/models", Caller.MANAGER).json().get("activations");
+    var activations = http().get("/api/v1/models", Caller.MANAGER).json().get("activations");
     assertEquals("worse", activations.get(0).get("reason").asText());
     assertEquals("manager-key", activations.get(0).get("activatedBy").asText());
   }
@@ -108,18 +100,18 @@ class ModelSwapTest {
   @Test
   void anUnknownOrDamagedVersionLeavesTheActiveOneInForce() throws Exception {
     String before = active();
-    Reply unknown = http.post("/api/v1/models/v-0042/activation", Map.of("reason", "x"),
+    Reply unknown = http().post("/api/v1/models/v-0042/activation", Map.of("reason", "x"),
         Caller.MANAGER);
     assertEquals(404, unknown.status());
     TestCopies.damagedVersion(service.data(), "v-0003");
-    Reply damaged = http.post("/api/v1/models/v-0003/activation", Map.of("reason", "x"),
+    Reply damaged = http().post("/api/v1/models/v-0003/activation", Map.of("reason", "x"),
         Caller.MANAGER);
     assertEquals(422, damaged.status(), damaged.raw().body());
     assertTrue(damaged.json().get("detail").asText().contains("corrupt"),
         damaged.json().toString());
     assertEquals(before, active());
     assertEquals(before, Files.readString(service.data().resolve("models/ACTIVE")).strip());
-    assertEquals(200, http.post("/api/v1/decisions", Map.of("question", "bin"), Caller.AGENT)
+    assertEquals(200, http().post("/api/v1/decisions", Map.of("question", "bin"), Caller.AGENT)
         .status());
   }
 
@@ -127,11 +119,11 @@ class ModelSwapTest {
   void aHandEditedFusionModelIsRefusedAndTheOldOneStays() throws Exception {
     String before = active();
     Map<String, String> question = Map.of("question", "The recycling lorry skipped our street");
-    double confidence = http.post("/api/v1/decisions", question, Caller.AGENT).json()
+    double confidence = http().post("/api/v1/decisions", question, Caller.AGENT).json()
         .get("confidence").asDouble();
     assertTrue(confidence < 0.99, "the trained model is not that sure: " + confidence);
     TestCopies.overconfidentVersion(service.data(), "v-0005");
-    Reply r = http.post("/api/v1/models/v-0005/activation", Map.of("reason", "try it"),
+    Reply r = http().post("/api/v1/models/v-0005/activation", Map.of("reason", "try it"),
         Caller.MANAGER);
     assertEquals(422, r.status(), r.raw().body());
     String detail = r.json().get("detail").asText();
@@ -139,7 +131,7 @@ class ModelSwapTest {
     assertTrue(detail.contains("the model in force is unchanged"), detail);
     assertEquals(before, active());
     assertEquals(before, Files.readString(service.data().resolve("models/ACTIVE")).strip());
-    var d = http.post("/api/v1/decisions", question, Caller.AGENT).json();
+    var d = http().post("/api/v1/decisions", question, Caller.AGENT).json();
     assertEquals(before, d.get("modelVersion").asText());
     assertEquals(confidence, d.get("confidence").asDouble(), 1e-9);
   }
@@ -148,7 +140,7 @@ class ModelSwapTest {
   void aVersionMadeByAnEarlierReleaseIsRefusedWithAdviceToTrainAgain() throws Exception {
     String before = active();
     TestCopies.earlierReleaseVersion(service.data(), "v-0006");
-    Reply r = http.post("/api/v1/models/v-0006/activation", Map.of("reason", "old one"),
+    Reply r = http().post("/api/v1/models/v-0006/activation", Map.of("reason", "old one"),
         Caller.MANAGER);
     assertEquals(422, r.status(), r.raw().body());
     String detail = r.json().get("detail").asText();
@@ -160,20 +152,20 @@ class ModelSwapTest {
   @Test
   void aReasonLongerThanTheAuditKeepsIs400AndChangesNothing() throws Exception {
     String before = active();
-    int audited = http.get("/api/v1/models", Caller.MANAGER).json().get("activations").size();
+    int audited = http().get("/api/v1/models", Caller.MANAGER).json().get("activations").size();
     String other = before.equals("v-0001") ? "v-0002" : "v-0001";
     // model_activation.reason is VARCHAR(2000) in schema.sql.
     String tooLong = "because ".repeat(250) + "x";
     for (String path : List.of("/api/v1/models/" + other + "/activation",
         "/api/v1/models/rollback")) {
-      Reply r = http.post(path, Map.of("reason", tooLong), Caller.MANAGER);
+      Reply r = http().post(path, Map.of("reason", tooLong), Caller.MANAGER);
       assertEquals(400, r.status(), path + ": " + r.raw().body());
       assertEquals("reason", r.json().get("errors").get(0).get("field").asText());
       assertTrue(r.json().get("detail").asText().contains("2000"), r.raw().body());
     }
     assertEquals(before, active());
     assertEquals(audited,
-        http.get("/api/v1/models", Caller.MANAGER).json().get("activations").size());
+        http().get("/api/v1/models", Caller.MANAGER).json().get("activations").size());
   }
 
   @Test

@@ -12,34 +12,26 @@ import java.util.Set;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.RegisterExtension;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
-import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.ServiceForClass;
 import org.springframework.jdbc.core.JdbcTemplate;
 
 /** The ticket queue: stored before acknowledged, decided once, resubmission idempotent. */
 class QueueServiceTest {
-  static RunningService service;
-  static Http http;
+  @RegisterExtension
+  static final ServiceForClass service = new ServiceForClass("--precedent.queue.poll-ms=100");
 
-  @BeforeAll
-  static void start() {
-    service = RunningService.start("--precedent.queue.poll-ms=100");
-    http = service.http();
-  }
-
-  @AfterAll
-  static void stop() {
-    service.close();
+  private static Http http() {
+    return service.http();
   }
 
   static JsonNode decided(String id) throws InterruptedException {
     for (int i = 0; i < 600; i++) {
-      Reply r = http.get("/api/v1/queue/tickets/" + id, Caller.QUEUE);
+      Reply r = http().get("/api/v1/queue/tickets/" + id, Caller.QUEUE);
       assertEquals(200, r.status(), r.raw().body());
       if (r.json().get("status").asText().equals("DECIDED")) {
         return r.json();
@@ -51,7 +43,7 @@ class QueueServiceTest {
 
   @Test
   void aSubmittedTicketIsStoredRedactedThenDecided() throws Exception {
-    Reply r = http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-1", "question",
+    Reply r = http().post("/api/v1/queue/tickets", Map.of("ticketId", "Q-1", "question",
         "My bin was not collected, call me on 07700 900123", "category", "waste"), Caller.QUEUE);
     assertEquals(202, r.status(), r.raw().body());
     assertEquals("/api/v1/queue/tickets/Q-1", r.header("Location"));
@@ -68,9 +60,9 @@ class QueueServiceTest {
   @Test
   void aResubmissionReturnsTheFirstDecision() throws Exception {
     Map<String, String> ticket = Map.of("ticketId", "Q-2", "question", "How do I read my meter?");
-    assertEquals(202, http.post("/api/v1/queue/tickets", ticket, Caller.QUEUE).status());
+    assertEquals(202, http().post("/api/v1/queue/tickets", ticket, Caller.QUEUE).status());
     JsonNode first = decided("Q-2");
-    Reply again = http.post("/api/v1/queue/tickets", ticket, Caller.QUEUE);
+    Reply again = http().post("/api/v1/queue/tickets", ticket, Caller.QUEUE);
     assertEquals(200, again.status());
     assertEquals(first.get("decidedAt").asText(), again.json().get("decidedAt").asText());
     assertEquals(first.get("decision"), again.json().get("decision"));
@@ -78,9 +70,9 @@ class QueueServiceTest {
 
   @Test
   void theSameIdWithAnotherQuestionIsAConflict() {
-    assertEquals(202, http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-3",
+    assertEquals(202, http().post("/api/v1/queue/tickets", Map.of("ticketId", "Q-3",
         "question", "Missed bin collection"), Caller.QUEUE).status());
-    Reply r = http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-3",
+    Reply r = http().post("/api/v1/queue/tickets", Map.of("ticketId", "Q-3",
         "question", "Something else entirely"), Caller.QUEUE);
     assertEquals(409, r.status());
     assertTrue(r.json().get("detail").asText().contains("Q-3"));
@@ -92,7 +84,7 @@ class QueueServiceTest {
     ExecutorService pool = Executors.newFixedThreadPool(8);
     List<Future<Integer>> statuses = new ArrayList<>();
     for (int i = 0; i < 16; i++) {
-      statuses.add(pool.submit(() -> http.post("/api/v1/queue/tickets", ticket, Caller.QUEUE)
+      statuses.add(pool.submit(() -> http().post("/api/v1/queue/tickets", ticket, Caller.QUEUE)
           .status()));
     }
     int accepted = 0;
@@ -115,22 +107,22 @@ class QueueServiceTest {
   @Test
   void aTicketOfApostropheJoinedLettersIsDecidedAndTheNextOneToo() throws Exception {
     String hostile = "my bin was not emptied " + "a'".repeat(5000);
-    assertEquals(202, http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-5", "question",
+    assertEquals(202, http().post("/api/v1/queue/tickets", Map.of("ticketId", "Q-5", "question",
         hostile), Caller.QUEUE).status());
-    assertEquals(202, http.post("/api/v1/queue/tickets", Map.of("ticketId", "Q-6", "question",
+    assertEquals(202, http().post("/api/v1/queue/tickets", Map.of("ticketId", "Q-6", "question",
         "Where do I pay my bill?"), Caller.QUEUE).status());
     assertEquals(1, decided("Q-5").get("attempts").asInt());
     decided("Q-6");
-    Reply direct = http.post("/api/v1/decisions", Map.of("question", hostile), Caller.QUEUE);
+    Reply direct = http().post("/api/v1/decisions", Map.of("question", hostile), Caller.QUEUE);
     assertEquals(200, direct.status(), direct.raw().body());
   }
 
   @Test
   void anUnknownTicketIs404AndABadIdIsAFieldError() {
-    Reply missing = http.get("/api/v1/queue/tickets/NOPE-9", Caller.AGENT);
+    Reply missing = http().get("/api/v1/queue/tickets/NOPE-9", Caller.AGENT);
     assertEquals(404, missing.status());
     assertTrue(missing.json().get("detail").asText().contains("NOPE-9"));
-    Reply bad = http.post("/api/v1/queue/tickets", Map.of("ticketId", "a b/c", "question", "x"),
+    Reply bad = http().post("/api/v1/queue/tickets", Map.of("ticketId", "a b/c", "question", "x"),
         Caller.QUEUE);
     assertEquals(400, bad.status());
     assertEquals("ticketId", bad.json().get("errors").get(0).get("field").asText());

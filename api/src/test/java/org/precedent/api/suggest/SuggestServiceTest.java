@@ -7,33 +7,25 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import java.util.Map;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.RegisterExtension;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
-import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.ServiceForClass;
 
 /** Suggestions, decisions and feedback over HTTP, on a real server and a real trained model. */
 class SuggestServiceTest {
-  static RunningService service;
-  static Http http;
+  @RegisterExtension
+  static final ServiceForClass service = new ServiceForClass();
 
-  @BeforeAll
-  static void start() {
-    service = RunningService.start();
-    http = service.http();
-  }
-
-  @AfterAll
-  static void stop() {
-    service.close();
+  private static Http http() {
+    return service.http();
   }
 
   @Test
   void suggestionsRankAnswersWithEvidenceAndMatchedSpans() {
-    Reply r = http.post("/api/v1/suggestions", Map.of("question",
+    Reply r = http().post("/api/v1/suggestions", Map.of("question",
         "My green bin was not emptied this week, can someone come back?", "limit", 4),
         Caller.AGENT);
     assertEquals(200, r.status(), r.raw().body());
@@ -67,7 +59,7 @@ class SuggestServiceTest {
 
   @Test
   void aSafetyQuestionIsHandedOffWithACaution() {
-    Reply r = http.post("/api/v1/decisions", Map.of("question",
+    Reply r = http().post("/api/v1/decisions", Map.of("question",
         "The water from my kitchen tap is brown. Is it safe to drink?"), Caller.QUEUE);
     assertEquals(200, r.status(), r.raw().body());
     assertEquals("HAND_OFF", r.json().get("outcome").asText());
@@ -78,7 +70,7 @@ class SuggestServiceTest {
 
   @Test
   void personalDataInTheQuestionIsRedactedInTheAnswer() {
-    Reply r = http.post("/api/v1/decisions", Map.of("question",
+    Reply r = http().post("/api/v1/decisions", Map.of("question",
         "Bill query from jo.bloggs@example.org about my meter reading"), Caller.AGENT);
     assertEquals(200, r.status());
     String q = r.json().get("question").asText();
@@ -88,7 +80,7 @@ class SuggestServiceTest {
 
   @Test
   void anEmptyQuestionIsAFieldError() {
-    Reply r = http.post("/api/v1/suggestions", Map.of("question", "  "), Caller.AGENT);
+    Reply r = http().post("/api/v1/suggestions", Map.of("question", "  "), Caller.AGENT);
     assertEquals(400, r.status());
     assertEquals("application/problem+json", r.header("Content-Type"));
     assertEquals("question", r.json().get("errors").get(0).get("field").asText());
@@ -96,7 +88,7 @@ class SuggestServiceTest {
 
   @Test
   void aQuestionOverTheLengthLimitIsAFieldError() {
-    Reply r = http.post("/api/v1/decisions", Map.of("question", "a".repeat(20_001)),
+    Reply r = http().post("/api/v1/decisions", Map.of("question", "a".repeat(20_001)),
         Caller.AGENT);
     assertEquals(400, r.status());
     JsonNode error = r.json().get("errors").get(0);
@@ -106,7 +98,7 @@ class SuggestServiceTest {
 
   @Test
   void aLimitOutOfRangeIsAFieldError() {
-    Reply r = http.post("/api/v1/suggestions", Map.of("question", "bin", "limit", 0),
+    Reply r = http().post("/api/v1/suggestions", Map.of("question", "bin", "limit", 0),
         Caller.AGENT);
     assertEquals(400, r.status());
     assertEquals("limit", r.json().get("errors").get(0).get("field").asText());
@@ -114,7 +106,7 @@ class SuggestServiceTest {
 
   @Test
   void brokenJsonSaysWhere() {
-    Reply r = http.post("/api/v1/decisions", "{\"question\": \"bin\",\n \"limit\": }",
+    Reply r = http().post("/api/v1/decisions", "{\"question\": \"bin\",\n \"limit\": }",
         Caller.AGENT);
     assertEquals(400, r.status());
     assertTrue(r.json().get("detail").asText().contains("line 2"), r.json().toString());
@@ -122,7 +114,7 @@ class SuggestServiceTest {
 
   @Test
   void aWrongTypeNamesTheField() {
-    Reply r = http.post("/api/v1/decisions", "{\"question\": \"bin\", \"limit\": \"many\"}",
+    Reply r = http().post("/api/v1/decisions", "{\"question\": \"bin\", \"limit\": \"many\"}",
         Caller.AGENT);
     assertEquals(400, r.status());
     assertEquals("limit", r.json().get("errors").get(0).get("field").asText());
@@ -130,7 +122,7 @@ class SuggestServiceTest {
 
   @Test
   void aBodyOverTheSizeLimitIs413() {
-    Reply r = http.post("/api/v1/decisions", Map.of("question", "x".repeat(300_000)),
+    Reply r = http().post("/api/v1/decisions", Map.of("question", "x".repeat(300_000)),
         Caller.AGENT);
     assertEquals(413, r.status());
     assertNotNull(r.json().get("detail"));
@@ -138,15 +130,15 @@ class SuggestServiceTest {
 
   @Test
   void feedbackIsRecordedAndAnEditNeedsItsText() {
-    Reply accepted = http.post("/api/v1/feedback", Map.of("question", "bin not emptied",
+    Reply accepted = http().post("/api/v1/feedback", Map.of("question", "bin not emptied",
         "answerGroup", "g-1", "verdict", "ACCEPTED"), Caller.AGENT);
     assertEquals(201, accepted.status(), accepted.raw().body());
     assertTrue(accepted.json().get("id").asLong() > 0);
-    Reply edited = http.post("/api/v1/feedback", Map.of("question", "bin not emptied",
+    Reply edited = http().post("/api/v1/feedback", Map.of("question", "bin not emptied",
         "answerGroup", "g-1", "verdict", "EDITED"), Caller.AGENT);
     assertEquals(400, edited.status());
     assertEquals("finalText", edited.json().get("errors").get(0).get("field").asText());
-    Reply unknown = http.post("/api/v1/feedback", Map.of("question", "bin not emptied",
+    Reply unknown = http().post("/api/v1/feedback", Map.of("question", "bin not emptied",
         "answerGroup", "g-1", "verdict", "MAYBE"), Caller.AGENT);
     assertEquals(400, unknown.status());
     assertEquals("verdict", unknown.json().get("errors").get(0).get("field").asText());
@@ -154,18 +146,18 @@ class SuggestServiceTest {
 
   @Test
   void healthAndTheApiDescriptionAreOpen() {
-    Reply health = http.get("/actuator/health", Caller.NOBODY);
+    Reply health = http().get("/actuator/health", Caller.NOBODY);
     assertEquals(200, health.status());
     assertEquals("UP", health.json().get("status").asText());
-    Reply api = http.get("/api/v1/openapi", Caller.NOBODY);
+    Reply api = http().get("/api/v1/openapi", Caller.NOBODY);
     assertEquals(200, api.status());
     assertTrue(api.json().get("paths").has("/api/v1/suggestions"));
   }
 
   @Test
   void decisionsAreCountedInTheMetrics() {
-    http.post("/api/v1/decisions", Map.of("question", "meter reading"), Caller.AGENT);
-    Reply m = http.get("/actuator/metrics/precedent.decisions", Caller.MANAGER);
+    http().post("/api/v1/decisions", Map.of("question", "meter reading"), Caller.AGENT);
+    Reply m = http().get("/actuator/metrics/precedent.decisions", Caller.MANAGER);
     assertEquals(200, m.status(), m.raw().body());
     assertTrue(m.json().get("measurements").get(0).get("value").asDouble() >= 1);
   }

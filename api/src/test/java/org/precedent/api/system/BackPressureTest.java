@@ -16,14 +16,13 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.RegisterExtension;
 import org.precedent.api.cli.PrecedentCommand;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
-import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.ServiceForClass;
 
 /**
  * Decisions over HTTP are taken one at a time here (one slot, one place in the line): a request
@@ -31,20 +30,13 @@ import org.precedent.api.testing.RunningService;
  * without end; the decisions run on the decision threads alone.
  */
 class BackPressureTest {
-  static RunningService service;
-  static Http http;
-
-  @BeforeAll
-  static void start() {
-    service = RunningService.start("--precedent.decisions.concurrent=1",
+  @RegisterExtension
+  static final ServiceForClass service = new ServiceForClass("--precedent.decisions.concurrent=1",
         "--precedent.decisions.queue=1", "--precedent.decisions.wait-ms=60000",
         "--precedent.decisions.retry-after-seconds=3");
-    http = service.http();
-  }
 
-  @AfterAll
-  static void stop() {
-    service.close();
+  private static Http http() {
+    return service.http();
   }
 
   private static Map<String, Object> question(int i) {
@@ -63,7 +55,7 @@ class BackPressureTest {
         String path = n % 2 == 0 ? "/api/v1/decisions" : "/api/v1/suggestions";
         replies.add(pool.submit(() -> {
           go.await();
-          return http.post(path, question(n), Caller.AGENT);
+          return http().post(path, question(n), Caller.AGENT);
         }));
       }
       go.countDown();
@@ -102,7 +94,7 @@ class BackPressureTest {
       }));
       holding.await();
       // The one place in the line is taken by a request over HTTP.
-      Future<Reply> waiting = pool.submit(() -> http.post("/api/v1/decisions", question(0),
+      Future<Reply> waiting = pool.submit(() -> http().post("/api/v1/decisions", question(0),
           Caller.QUEUE));
       while (slots.inProgress() < 2) {
         if (waiting.isDone()) {
@@ -111,15 +103,15 @@ class BackPressureTest {
         }
         Thread.onSpinWait();
       }
-      Reply refused = http.post("/api/v1/suggestions", question(1), Caller.AGENT);
+      Reply refused = http().post("/api/v1/suggestions", question(1), Caller.AGENT);
       assertBusy(refused);
       assertTrue(refused.json().get("detail").asText().contains("1 more requests are waiting"),
           refused.raw().body());
-      assertEquals(200, http.get("/actuator/health", Caller.NOBODY).status());
+      assertEquals(200, http().get("/actuator/health", Caller.NOBODY).status());
       release.countDown();
       held.get();
       assertEquals(200, waiting.get().status(), waiting.get().raw().body());
-      assertEquals(200, http.post("/api/v1/decisions", question(2), Caller.AGENT).status());
+      assertEquals(200, http().post("/api/v1/decisions", question(2), Caller.AGENT).status());
     } finally {
       release.countDown();
       pool.shutdownNow();
@@ -132,9 +124,9 @@ class BackPressureTest {
     double before = metric("precedent.decisions.run", "");
     int answered = 0;
     for (int i = 0; i < 4; i++) {
-      answered += http.post("/api/v1/decisions", question(i), Caller.AGENT).status() == 200
+      answered += http().post("/api/v1/decisions", question(i), Caller.AGENT).status() == 200
           ? 1 : 0;
-      answered += http.post("/api/v1/suggestions", question(i), Caller.AGENT).status() == 200
+      answered += http().post("/api/v1/suggestions", question(i), Caller.AGENT).status() == 200
           ? 1 : 0;
     }
     assertEquals(8, answered);
@@ -147,7 +139,7 @@ class BackPressureTest {
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();
     int status = PrecedentCommand.run(new PrintWriter(out, true), new PrintWriter(err, true),
-        "benchmark", "service", "--url", http.base(), "--clients", "8", "--seconds", "2");
+        "benchmark", "service", "--url", http().base(), "--clients", "8", "--seconds", "2");
     // Refusals are the service protecting itself, not failures: the run succeeds.
     assertEquals(0, status, out + "\n" + err);
     Matcher refused = Pattern.compile("refused as busy \\(503/429\\): ([0-9,]+)")
@@ -159,7 +151,7 @@ class BackPressureTest {
 
   /** The first measurement of a metric (a count, for a timer). */
   private static double metric(String name, String query) {
-    Reply r = http.get("/actuator/metrics/" + name + query, Caller.MANAGER);
+    Reply r = http().get("/actuator/metrics/" + name + query, Caller.MANAGER);
     assertEquals(200, r.status(), name + ": " + r.raw().body());
     return r.json().get("measurements").get(0).get("value").asDouble();
   }

@@ -54,21 +54,13 @@ class DecisionSlotsTest {
   @Test
   void whenTheLineIsFullTheNextIsRefusedAtOnce() throws Exception {
     try (DecisionSlots slots = slots(1, 0, 60_000)) {
-      CountDownLatch holding = new CountDownLatch(1);
-      CountDownLatch release = new CountDownLatch(1);
       ExecutorService pool = Executors.newSingleThreadExecutor();
-      Future<String> held = pool.submit(() -> slots.run(() -> {
-        holding.countDown();
-        await(release);
-        return "done";
-      }));
-      holding.await();
+      Held held = holdTheSlot(slots, pool);
       DecisionSlots.Busy busy = assertThrows(DecisionSlots.Busy.class,
           () -> slots.run(() -> "never"));
       assertEquals(2, busy.retryAfterSeconds());
       assertTrue(busy.getMessage().contains("all 1 decision slots are busy"), busy.getMessage());
-      release.countDown();
-      assertEquals("done", held.get());
+      assertEquals("done", held.finish());
       assertEquals("next", slots.run(() -> "next"));
       pool.shutdown();
     }
@@ -77,22 +69,14 @@ class DecisionSlotsTest {
   @Test
   void aWaitInTheLineEndsWithARefusalWhenNoSlotFrees() throws Exception {
     try (DecisionSlots slots = slots(1, 1, 50)) {
-      CountDownLatch holding = new CountDownLatch(1);
-      CountDownLatch release = new CountDownLatch(1);
       ExecutorService pool = Executors.newSingleThreadExecutor();
-      Future<String> held = pool.submit(() -> slots.run(() -> {
-        holding.countDown();
-        await(release);
-        return "done";
-      }));
-      holding.await();
+      Held held = holdTheSlot(slots, pool);
       DecisionSlots.Busy busy = assertThrows(DecisionSlots.Busy.class,
           () -> slots.run(() -> "never"));
       assertTrue(busy.getMessage().contains("within 50 ms"), busy.getMessage());
       // The refused request left the line: only the held one is still in progress.
       assertEquals(1, slots.inProgress());
-      release.countDown();
-      assertEquals("done", held.get());
+      assertEquals("done", held.finish());
       assertEquals(0, slots.inProgress());
       pool.shutdown();
     }
@@ -116,6 +100,27 @@ class DecisionSlotsTest {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> slots(1, -1, 0));
     assertTrue(e.getMessage().contains("queue -1"), e.getMessage());
+  }
+
+  /** A decision in the only slot that runs until it is released. */
+  private record Held(CountDownLatch release, Future<String> done) {
+    String finish() throws Exception {
+      release.countDown();
+      return done.get();
+    }
+  }
+
+  private static Held holdTheSlot(DecisionSlots slots, ExecutorService pool)
+      throws InterruptedException {
+    CountDownLatch holding = new CountDownLatch(1);
+    CountDownLatch release = new CountDownLatch(1);
+    Future<String> done = pool.submit(() -> slots.run(() -> {
+      holding.countDown();
+      await(release);
+      return "done";
+    }));
+    holding.await();
+    return new Held(release, done);
   }
 
   private static void await(CountDownLatch latch) {

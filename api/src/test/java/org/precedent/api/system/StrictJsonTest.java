@@ -10,15 +10,14 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.extension.RegisterExtension;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
-import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.ServiceForClass;
 
 /**
  * Every JSON endpoint reads its body strictly: a field given twice, anything after the object,
@@ -26,18 +25,11 @@ import org.precedent.api.testing.RunningService;
  * refused with a 400 that names the field, in words that name no class of the service.
  */
 class StrictJsonTest {
-  static RunningService service;
-  static Http http;
+  @RegisterExtension
+  static final ServiceForClass service = new ServiceForClass();
 
-  @BeforeAll
-  static void start() {
-    service = RunningService.start();
-    http = service.http();
-  }
-
-  @AfterAll
-  static void stop() {
-    service.close();
+  private static Http http() {
+    return service.http();
   }
 
   /**
@@ -89,7 +81,7 @@ class StrictJsonTest {
   void aFieldGivenTwiceIsRefused(Endpoint e) {
     // The first value would be silently replaced by the second: a question swapped in one body.
     String body = "{\"" + e.textField() + "\": \"the first one\", " + e.json().substring(1);
-    Reply r = http.send(e.method(), e.path(), body, e.caller());
+    Reply r = http().send(e.method(), e.path(), body, e.caller());
     assertFieldError(r, e.textField(), "twice");
   }
 
@@ -97,7 +89,7 @@ class StrictJsonTest {
   @MethodSource("endpoints")
   void anythingAfterTheObjectIsRefused(Endpoint e) {
     for (String tail : List.of(" {\"" + e.textField() + "\": \"another\"}", " trailing", " 7")) {
-      Reply r = http.send(e.method(), e.path(), e.json() + tail, e.caller());
+      Reply r = http().send(e.method(), e.path(), e.json() + tail, e.caller());
       assertProblem(r, e + " with" + tail);
       assertTrue(r.json().get("detail").asText().contains("line 1"), r.raw().body());
     }
@@ -107,7 +99,7 @@ class StrictJsonTest {
   @MethodSource("endpoints")
   void aNumberOrBooleanWhereTextBelongsIsRefused(Endpoint e) {
     for (Object notText : List.of(42, 4.5, true, false)) {
-      Reply r = http.send(e.method(), e.path(), write(e.with(e.textField(), notText)),
+      Reply r = http().send(e.method(), e.path(), write(e.with(e.textField(), notText)),
           e.caller());
       assertFieldError(r, e.textField(), "text");
     }
@@ -116,7 +108,7 @@ class StrictJsonTest {
   @ParameterizedTest(name = "{0}")
   @MethodSource("endpoints")
   void aFieldTheRequestDoesNotHaveIsRefused(Endpoint e) {
-    Reply r = http.send(e.method(), e.path(), write(e.with(e.misspelt(), "bins")), e.caller());
+    Reply r = http().send(e.method(), e.path(), write(e.with(e.misspelt(), "bins")), e.caller());
     JsonNode error = assertFieldError(r, e.misspelt(), "not a field");
     // The message lists the fields there are, so the client sees what was meant.
     for (String field : e.body().keySet()) {
@@ -127,7 +119,7 @@ class StrictJsonTest {
   @Test
   void textOrAFractionWhereAWholeNumberBelongsIsRefused() {
     for (Object notWhole : List.of("2", 2.5, true)) {
-      Reply r = http.post("/api/v1/suggestions", Map.of("question", "bin", "limit", notWhole),
+      Reply r = http().post("/api/v1/suggestions", Map.of("question", "bin", "limit", notWhole),
           Caller.AGENT);
       assertFieldError(r, "limit", "whole number");
     }
@@ -135,17 +127,17 @@ class StrictJsonTest {
 
   @Test
   void textWhereANumberBelongsIsRefused() {
-    Reply r = http.put("/api/v1/threshold", Map.of("global", "0.9", "reason", "as text"),
+    Reply r = http().put("/api/v1/threshold", Map.of("global", "0.9", "reason", "as text"),
         Caller.MANAGER);
     assertFieldError(r, "global", "number");
-    r = http.put("/api/v1/threshold", Map.of("global", 0.9, "perCategory", Map.of("bins", "1"),
+    r = http().put("/api/v1/threshold", Map.of("global", 0.9, "perCategory", Map.of("bins", "1"),
         "reason", "as text"), Caller.MANAGER);
     assertFieldError(r, "perCategory.bins", "number");
   }
 
   @Test
   void aFieldGivenTwiceInsideAnObjectIsNamedWithItsPath() {
-    Reply r = http.put("/api/v1/threshold", "{\"global\": 0.9, \"perCategory\": {\"bins\": 0.95, "
+    Reply r = http().put("/api/v1/threshold", "{\"global\": 0.9, \"perCategory\": {\"bins\": 0.95, "
         + "\"bins\": 0.1}, \"reason\": \"twice\"}", Caller.MANAGER);
     assertFieldError(r, "perCategory.bins", "twice");
   }
@@ -153,7 +145,7 @@ class StrictJsonTest {
   @Test
   void aVerdictMustBeOneOfItsNamesNotANumber() {
     for (Object verdict : List.of(0, "MAYBE", true)) {
-      Reply r = http.post("/api/v1/feedback", Map.of("question", "bin", "answerGroup", "g-1",
+      Reply r = http().post("/api/v1/feedback", Map.of("question", "bin", "answerGroup", "g-1",
           "verdict", verdict), Caller.AGENT);
       JsonNode error = assertFieldError(r, "verdict", "one of");
       assertTrue(error.get("message").asText().contains("ACCEPTED, EDITED, REJECTED"),
@@ -164,7 +156,7 @@ class StrictJsonTest {
   @Test
   void aBodyThatIsNotAnObjectSaysSo() {
     for (String body : List.of("[]", "\"bin\"", "42")) {
-      Reply r = http.send("POST", "/api/v1/decisions", body, Caller.AGENT);
+      Reply r = http().send("POST", "/api/v1/decisions", body, Caller.AGENT);
       assertProblem(r, body);
       assertTrue(r.json().get("detail").asText().contains("JSON object"), r.raw().body());
     }

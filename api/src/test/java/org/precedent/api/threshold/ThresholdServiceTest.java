@@ -9,16 +9,16 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
-import org.junit.jupiter.api.AfterAll;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.MethodOrderer;
 import org.junit.jupiter.api.Order;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.TestMethodOrder;
+import org.junit.jupiter.api.extension.RegisterExtension;
 import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.RunningService;
+import org.precedent.api.testing.ServiceForClass;
 import org.precedent.api.testing.TrainedData;
 import org.precedent.engine.decide.ActiveModel;
 import org.precedent.knowledge.store.DataDir;
@@ -26,43 +26,36 @@ import org.precedent.knowledge.store.DataDir;
 /** Threshold changes: applied to the next decision, written to the data directory, audited. */
 @TestMethodOrder(MethodOrderer.OrderAnnotation.class)
 class ThresholdServiceTest {
-  static RunningService service;
-  static Http http;
+  @RegisterExtension
+  static final ServiceForClass service = new ServiceForClass();
 
-  @BeforeAll
-  static void start() {
-    service = RunningService.start();
-    http = service.http();
-  }
-
-  @AfterAll
-  static void stop() {
-    service.close();
+  private static Http http() {
+    return service.http();
   }
 
   @Test
   @Order(1) // first: it starts from the default threshold
   void aChangeIsAppliedWrittenAndAudited() throws Exception {
-    assertEquals(0.95, http.get("/api/v1/threshold", Caller.MANAGER).json().get("global")
+    assertEquals(0.95, http().get("/api/v1/threshold", Caller.MANAGER).json().get("global")
         .asDouble(), 1e-9);
-    Reply r = http.put("/api/v1/threshold", Map.of("global", 0.7, "perCategory",
+    Reply r = http().put("/api/v1/threshold", Map.of("global", 0.7, "perCategory",
         Map.of("billing", 0.99), "reason", "pilot week: answer more routine questions"),
         Caller.MANAGER);
     assertEquals(200, r.status(), r.raw().body());
     assertEquals("global=0.9500", r.json().get("old").asText());
     assertEquals("global=0.7000; billing=0.9900", r.json().get("new").asText());
 
-    JsonNode d = http.post("/api/v1/decisions", Map.of("question", "bin not emptied"),
+    JsonNode d = http().post("/api/v1/decisions", Map.of("question", "bin not emptied"),
         Caller.AGENT).json();
     assertEquals(0.7, d.get("threshold").asDouble(), 1e-9);
-    JsonNode billing = http.post("/api/v1/decisions", Map.of("question", "bin not emptied",
+    JsonNode billing = http().post("/api/v1/decisions", Map.of("question", "bin not emptied",
         "category", "billing"), Caller.AGENT).json();
     assertEquals(0.99, billing.get("threshold").asDouble(), 1e-9);
 
     String file = thresholdsFile();
     assertTrue(file.contains("global=0.7000") && file.contains("category.billing=0.9900"), file);
 
-    JsonNode audit = http.get("/api/v1/threshold/changes", Caller.MANAGER).json().get(0);
+    JsonNode audit = http().get("/api/v1/threshold/changes", Caller.MANAGER).json().get(0);
     assertEquals("manager-key", audit.get("changedBy").asText());
     assertEquals("global=0.9500", audit.get("old").asText());
     assertEquals("pilot week: answer more routine questions", audit.get("reason").asText());
@@ -71,28 +64,28 @@ class ThresholdServiceTest {
 
   @Test
   void aChangeWithoutAReasonOrOutOfRangeIsRefusedAndChangesNothing() {
-    double before = http.get("/api/v1/threshold", Caller.MANAGER).json().get("global").asDouble();
-    int audited = http.get("/api/v1/threshold/changes", Caller.MANAGER).json().size();
-    Reply noReason = http.put("/api/v1/threshold", Map.of("global", 0.5), Caller.MANAGER);
+    double before = http().get("/api/v1/threshold", Caller.MANAGER).json().get("global").asDouble();
+    int audited = http().get("/api/v1/threshold/changes", Caller.MANAGER).json().size();
+    Reply noReason = http().put("/api/v1/threshold", Map.of("global", 0.5), Caller.MANAGER);
     assertEquals(400, noReason.status());
     assertEquals("reason", noReason.json().get("errors").get(0).get("field").asText());
-    Reply tooHigh = http.put("/api/v1/threshold", Map.of("global", 1.5, "reason", "x"),
+    Reply tooHigh = http().put("/api/v1/threshold", Map.of("global", 1.5, "reason", "x"),
         Caller.MANAGER);
     assertEquals(400, tooHigh.status());
     assertEquals("global", tooHigh.json().get("errors").get(0).get("field").asText());
-    Reply badCategory = http.put("/api/v1/threshold", Map.of("global", 0.5, "reason", "x",
+    Reply badCategory = http().put("/api/v1/threshold", Map.of("global", 0.5, "reason", "x",
         "perCategory", Map.of("water", -0.1)), Caller.MANAGER);
     assertEquals(400, badCategory.status());
     assertEquals("perCategory.water",
         badCategory.json().get("errors").get(0).get("field").asText());
-    assertEquals(before, http.get("/api/v1/threshold", Caller.MANAGER).json().get("global")
+    assertEquals(before, http().get("/api/v1/threshold", Caller.MANAGER).json().get("global")
         .asDouble());
-    assertEquals(audited, http.get("/api/v1/threshold/changes", Caller.MANAGER).json().size());
+    assertEquals(audited, http().get("/api/v1/threshold/changes", Caller.MANAGER).json().size());
   }
 
   @Test
   void withoutAnEvaluationTheReportIs404() {
-    Reply r = http.get("/api/v1/threshold/evaluation", Caller.MANAGER);
+    Reply r = http().get("/api/v1/threshold/evaluation", Caller.MANAGER);
     assertEquals(404, r.status());
     assertTrue(r.json().get("detail").asText().contains("precedent evaluate"));
   }
@@ -108,13 +101,13 @@ class ThresholdServiceTest {
     for (int i = 0; i < AWKWARD.size(); i++) {
       perCategory.put(AWKWARD.get(i), (50 + i) / 100.0);
     }
-    Reply r = http.put("/api/v1/threshold", Map.of("global", 0.9, "perCategory", perCategory,
+    Reply r = http().put("/api/v1/threshold", Map.of("global", 0.9, "perCategory", perCategory,
         "reason", "categories as the help desk names them"), Caller.MANAGER);
     assertEquals(200, r.status(), r.raw().body());
-    assertEquals(perCategory, perCategory(http));
+    assertEquals(perCategory, perCategory(http()));
     assertEquals(perCategory, ActiveModel.readThresholds(new DataDir(service.data()))
         .perCategory());
-    JsonNode d = http.post("/api/v1/decisions", Map.of("question", "bin not emptied",
+    JsonNode d = http().post("/api/v1/decisions", Map.of("question", "bin not emptied",
         "category", "a\\u12"), Caller.AGENT).json();
     assertEquals(perCategory.get("a\\u12"), d.get("threshold").asDouble(), 1e-9);
 
@@ -132,9 +125,9 @@ class ThresholdServiceTest {
     return Files.exists(file) ? Files.readString(file) : "(none)";
   }
 
-  private static Map<String, Double> perCategory(Http http) {
+  private static Map<String, Double> perCategory(Http on) {
     Map<String, Double> out = new TreeMap<>();
-    http.get("/api/v1/threshold", Caller.MANAGER).json().get("perCategory").fields()
+    on.get("/api/v1/threshold", Caller.MANAGER).json().get("perCategory").fields()
         .forEachRemaining(e -> out.put(e.getKey(), e.getValue().asDouble()));
     return out;
   }
@@ -143,7 +136,7 @@ class ThresholdServiceTest {
   void unusableCategoryNamesAreRefusedNamingTheField() throws Exception {
     String file = thresholdsFile();
     for (String bad : List.of(" bins", "line\nbreak", "zero\u200bwidth", "x".repeat(201))) {
-      Reply r = http.put("/api/v1/threshold", Map.of("global", 0.5, "reason", "x",
+      Reply r = http().put("/api/v1/threshold", Map.of("global", 0.5, "reason", "x",
           "perCategory", Map.of(bad, 0.5)), Caller.MANAGER);
       assertEquals(400, r.status(), r.raw().body());
       assertEquals("perCategory", r.json().get("errors").get(0).get("field").asText());
@@ -154,24 +147,24 @@ class ThresholdServiceTest {
   @Test
   void moreCategoriesThanTheAuditRecordHoldsIs400AndChangesNothing() throws Exception {
     String file = thresholdsFile();
-    int audited = http.get("/api/v1/threshold/changes", Caller.MANAGER).json().size();
+    int audited = http().get("/api/v1/threshold/changes", Caller.MANAGER).json().size();
     // threshold_change.new_value is VARCHAR(4000) in schema.sql: 30 names of 150 characters
     // do not fit.
     Map<String, Double> perCategory = new TreeMap<>();
     for (int i = 0; i < 30; i++) {
       perCategory.put(String.format("%03d", i) + "c".repeat(147), 0.9);
     }
-    Reply r = http.put("/api/v1/threshold", Map.of("global", 0.5, "reason", "many",
+    Reply r = http().put("/api/v1/threshold", Map.of("global", 0.5, "reason", "many",
         "perCategory", perCategory), Caller.MANAGER);
     assertEquals(400, r.status(), r.raw().body());
     assertEquals("perCategory", r.json().get("errors").get(0).get("field").asText());
     assertTrue(r.json().get("detail").asText().contains("4000"), r.raw().body());
-    Reply longReason = http.put("/api/v1/threshold", Map.of("global", 0.5,
+    Reply longReason = http().put("/api/v1/threshold", Map.of("global", 0.5,
         "reason", "because ".repeat(250) + "x"), Caller.MANAGER);
     assertEquals(400, longReason.status(), longReason.raw().body());
     assertEquals("reason", longReason.json().get("errors").get(0).get("field").asText());
     assertTrue(longReason.json().get("detail").asText().contains("2000"), longReason.raw().body());
     assertEquals(file, thresholdsFile());
-    assertEquals(audited, http.get("/api/v1/threshold/changes", Caller.MANAGER).json().size());
+    assertEquals(audited, http().get("/api/v1/threshold/changes", Caller.MANAGER).json().size());
   }
 }
