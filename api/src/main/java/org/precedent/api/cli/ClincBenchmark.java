@@ -27,7 +27,7 @@ import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import picocli.CommandLine.Command;
@@ -130,7 +130,7 @@ final class ClincBenchmark implements Callable<Integer> {
       out.println("Larson et al. 2019, Table 2 (Full, oos-threshold): BERT 96.2 / 52.3, MLP 93.4 / "
           + "49.1, CNN 90.9 / 30.9, FastText 88.6 / 28.3, linear SVM 88.2 / 18.0");
     } finally {
-      org.precedent.knowledge.store.AtomicFiles.deleteTree(scratch);
+      org.precedent.knowledge.io.AtomicFiles.deleteTree(scratch);
     }
     return 0;
   }

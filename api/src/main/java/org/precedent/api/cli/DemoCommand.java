@@ -22,7 +22,7 @@ import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.IngestReport;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Aggregation;
 import org.precedent.knowledge.retrieve.CandidateRecall;
 import org.precedent.knowledge.store.DataDir;

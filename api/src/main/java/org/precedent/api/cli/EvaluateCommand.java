@@ -26,7 +26,7 @@ import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.ticket.Ticket;
 import picocli.CommandLine.Command;
@@ -124,7 +124,7 @@ final class EvaluateCommand implements Callable<Integer> {
         new Ranker(active.fusion()), active.safety(), questions, new Progress("evaluating", "tickets", System.err));
     EvaluationReport report = EvaluationReports.build(dataset + " (model " + active.version()
         + ")", runs, target);
-    org.precedent.knowledge.store.AtomicFiles.createPrivateDirectories(dir);
+    org.precedent.knowledge.io.AtomicFiles.createPrivateDirectories(dir);
     String stamp = DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss").withZone(ZoneOffset.UTC)
         .format(Instant.now());
     Path json = dir.resolve("evaluation-" + stamp + ".json");

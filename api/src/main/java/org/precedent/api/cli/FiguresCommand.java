@@ -24,7 +24,7 @@ import org.precedent.engine.figures.FigureDocs;
 import org.precedent.engine.figures.MeasuredFigures;
 import org.precedent.engine.rerank.TrainingMetrics;
 import org.precedent.engine.rerank.store.ModelStore;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;

@@ -12,7 +12,7 @@ import org.precedent.knowledge.ingest.IngestException;
 import org.precedent.knowledge.ingest.IngestReport;
 import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.ingest.RowProblem;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;

@@ -15,7 +15,7 @@ import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.IngestReport;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.RetrievalSettings;
 import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
@@ -92,7 +92,7 @@ final class RetrievalBenchmark implements Callable<Integer> {
             percentile(nanos, 0.99) / 1e6, nanos[nanos.length - 1] / 1e6, queries);
       }
     } finally {
-      org.precedent.knowledge.store.AtomicFiles.deleteTree(scratch);
+      org.precedent.knowledge.io.AtomicFiles.deleteTree(scratch);
     }
     return 0;
   }

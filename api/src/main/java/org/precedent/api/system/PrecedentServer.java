@@ -4,7 +4,7 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
 import org.springframework.beans.factory.annotation.Value;
 import org.springframework.boot.SpringApplication;

@@ -8,7 +8,7 @@ import java.util.LinkedHashMap;
 import java.util.Optional;
 import java.util.function.LongSupplier;
 import java.util.regex.Pattern;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.springframework.beans.factory.annotation.Autowired;
 import org.springframework.beans.factory.annotation.Value;
 import org.springframework.stereotype.Component;

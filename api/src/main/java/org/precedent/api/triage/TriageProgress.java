@@ -6,7 +6,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Optional;
 import java.util.Properties;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 
 /**
  * How far a triage run got: tickets whose decisions are in the output file, and the output's length

@@ -14,7 +14,7 @@ import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
@@ -103,7 +103,7 @@ public final class TrainedData {
       return;
     }
     try {
-      org.precedent.knowledge.store.AtomicFiles.deleteTree(dir);
+      org.precedent.knowledge.io.AtomicFiles.deleteTree(dir);
     } catch (IOException e) {
       // A temp directory left behind is harmless; the test result is what matters.
     }

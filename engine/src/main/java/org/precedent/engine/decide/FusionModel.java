@@ -7,7 +7,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import org.precedent.engine.rerank.ModelLoadException;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 
 /**
  * The fitted fusion and calibration of a model version, one {@link SystemModel} per scoring system,

@@ -15,7 +15,7 @@ import java.util.Map;
 import java.util.Properties;
 import java.util.TreeSet;
 import org.precedent.engine.measure.ThresholdDecimals;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 
 /**
  * {@code DIR/thresholds.properties}: {@code global=0.9000} and one {@code category.NAME=0.9500}

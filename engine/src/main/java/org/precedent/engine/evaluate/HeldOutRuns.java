@@ -12,7 +12,7 @@ import org.precedent.engine.decide.ScoredCandidate;
 import org.precedent.engine.decide.ScoringSystem;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.safety.SafetyPolicy;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Retriever;
 
 /**

@@ -13,7 +13,7 @@ import org.precedent.engine.decide.FusionModel;
 import org.precedent.engine.decide.ScoringSystem;
 import org.precedent.engine.decide.SystemModel;
 import org.precedent.engine.rerank.Scorer;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Retriever;
 
 /**

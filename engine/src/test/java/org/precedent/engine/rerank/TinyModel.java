@@ -28,7 +28,7 @@ public final class TinyModel {
 
   static void deleteTree(Path dir) {
     try {
-      org.precedent.knowledge.store.AtomicFiles.deleteTree(dir);
+      org.precedent.knowledge.io.AtomicFiles.deleteTree(dir);
     } catch (IOException ignored) {
       // a temporary directory left behind is harmless
     }

@@ -14,7 +14,7 @@ import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.group.Grouping;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;

@@ -1,5 +1,7 @@
 package org.precedent.knowledge.store;
 
+import org.precedent.knowledge.io.AtomicFiles;
+
 import java.io.IOException;
 import java.nio.channels.FileChannel;
 import java.nio.channels.FileLock;

@@ -1,5 +1,7 @@
 package org.precedent.knowledge.store;
 
+import org.precedent.knowledge.io.AtomicFiles;
+
 import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
@@ -19,7 +21,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.precedent.knowledge.group.Grouping;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.retrieve.TicketIndex;
 import org.precedent.knowledge.ticket.Ticket;

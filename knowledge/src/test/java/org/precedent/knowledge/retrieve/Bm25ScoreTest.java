@@ -11,7 +11,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.Grouping;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.ticket.Ticket;
 
 /**

@@ -1,5 +1,7 @@
 package org.precedent.knowledge.store;
 
+import org.precedent.knowledge.io.AtomicFiles;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -20,7 +22,7 @@ import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.progress.Progress;
+import org.precedent.knowledge.io.Progress;
 
 /** The data directory holds customers' questions: after an ingest only its owner can read it. */
 class PrivateDataTest {

@@ -25,7 +25,7 @@ import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.TrainedReranker;
 import org.precedent.engine.rerank.TrainingMetrics;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.engine.rerank.tokens.Vocabulary;
 
 /**

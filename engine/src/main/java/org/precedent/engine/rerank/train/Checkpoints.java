@@ -9,7 +9,7 @@ import org.deeplearning4j.nn.graph.ComputationGraph;
 import org.deeplearning4j.util.ModelSerializer;
 import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.RerankerConfig;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.engine.rerank.tokens.Vocabulary;
 
 /**

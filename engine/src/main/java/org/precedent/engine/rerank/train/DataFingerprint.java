@@ -5,7 +5,7 @@ import java.security.MessageDigest;
 import java.util.HexFormat;
 import java.util.List;
 import org.precedent.engine.rerank.TrainingPair;
-import org.precedent.knowledge.store.AtomicFiles;
+import org.precedent.knowledge.io.AtomicFiles;
 
 /** SHA-256 of the training pairs in order: ties a model or checkpoint to the exact data it learned from. */
 public final class DataFingerprint {

@@ -1,4 +1,4 @@
-package org.precedent.knowledge.progress;
+package org.precedent.knowledge.io;
 
 import java.io.PrintStream;
 import java.time.Duration;

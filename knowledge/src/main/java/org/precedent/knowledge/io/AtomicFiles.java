@@ -1,4 +1,4 @@
-package org.precedent.knowledge.store;
+package org.precedent.knowledge.io;
 
 import java.io.IOException;
 import java.io.OutputStream;
