@@ -2,8 +2,8 @@ package org.precedent.engine.decide;
 
 import java.util.List;
 import java.util.Objects;
-import org.precedent.engine.fusion.LogisticModel;
-import org.precedent.engine.fusion.PlattCalibrator;
+import org.precedent.engine.stats.LogisticModel;
+import org.precedent.engine.stats.PlattCalibrator;
 
 /**
  * One scoring system's fitted parts: a logistic model of "this candidate is the right answer" over

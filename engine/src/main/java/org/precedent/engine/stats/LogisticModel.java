@@ -1,19 +1,16 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 
 /**
  * A fitted logistic model, kept in the standardised units it was fitted in: log-odds = bias + sum_j
  * weights[j] * (x[j] - mean[j]) / std[j]. Storing mean and std with the weights lets the model be
  * applied to raw features, saved and reloaded without refitting.
  *
- * <p>Arrays are copied in and out, so a model cannot change after construction. {@link #toMap()}
- * and {@link #fromMap(Map)} give a plain map of strings, numbers and lists for any JSON writer.
+ * <p>Arrays are copied in and out, so a model cannot change after construction. A fusion model
+ * saves it with Jackson, as a record.
  *
  * @param featureNames one distinct, non-blank name per feature, in column order
  * @param mean per-feature centre subtracted before scaling
@@ -115,71 +112,6 @@ public record LogisticModel(
       intercept -= weights[j] * mean[j] / std[j];
     }
     return intercept;
-  }
-
-  /** A map of strings, doubles and lists of them, ready for any JSON writer. */
-  public Map<String, Object> toMap() {
-    Map<String, Object> map = new LinkedHashMap<>();
-    map.put("featureNames", featureNames);
-    map.put("mean", boxed(mean));
-    map.put("std", boxed(std));
-    map.put("weights", boxed(weights));
-    map.put("bias", bias);
-    map.put("lambda", lambda);
-    return map;
-  }
-
-  /** Reads what {@link #toMap()} wrote; numbers may come back as any {@link Number} type. */
-  public static LogisticModel fromMap(Map<String, ?> map) {
-    if (map == null) {
-      throw new IllegalArgumentException("model map must not be null");
-    }
-    List<?> names = list(map, "featureNames");
-    List<String> featureNames = new ArrayList<>();
-    for (Object name : names) {
-      if (!(name instanceof String s)) {
-        throw new IllegalArgumentException("featureNames must hold strings; got " + name);
-      }
-      featureNames.add(s);
-    }
-    return new LogisticModel(
-        featureNames,
-        numbers(map, "mean"),
-        numbers(map, "std"),
-        numbers(map, "weights"),
-        number(map.get("bias"), "bias"),
-        number(map.get("lambda"), "lambda"));
-  }
-
-  private static List<Double> boxed(double[] values) {
-    List<Double> list = new ArrayList<>(values.length);
-    for (double v : values) {
-      list.add(v);
-    }
-    return List.copyOf(list);
-  }
-
-  private static List<?> list(Map<String, ?> map, String key) {
-    if (!(map.get(key) instanceof List<?> list)) {
-      throw new IllegalArgumentException("model map needs a list under \"" + key + "\"; got " + map.get(key));
-    }
-    return list;
-  }
-
-  private static double[] numbers(Map<String, ?> map, String key) {
-    List<?> list = list(map, key);
-    double[] values = new double[list.size()];
-    for (int i = 0; i < values.length; i++) {
-      values[i] = number(list.get(i), key + "[" + i + "]");
-    }
-    return values;
-  }
-
-  private static double number(Object value, String key) {
-    if (!(value instanceof Number n)) {
-      throw new IllegalArgumentException("model map needs a number for \"" + key + "\"; got " + value);
-    }
-    return n.doubleValue();
   }
 
   // A record compares arrays by identity; a model is a value, so compare contents.

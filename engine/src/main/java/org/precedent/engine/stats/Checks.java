@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 /** Argument checks shared by the fitters, so every refusal names what was wrong and where. */
 final class Checks {

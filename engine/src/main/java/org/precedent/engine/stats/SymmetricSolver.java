@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 /**
  * Solves M x = g for a symmetric positive semi-definite M (only the lower triangle is read) by

@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 /**
  * Fits Platt's sigmoid (J. Platt, 1999, "Probabilistic Outputs for Support Vector Machines and

@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 import java.util.Arrays;
 import java.util.List;

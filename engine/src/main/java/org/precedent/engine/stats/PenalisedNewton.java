@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 import java.util.ArrayList;
 import java.util.List;

@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 /** The logistic function and its log terms, written so large arguments neither overflow nor lose digits. */
 final class Sigmoid {

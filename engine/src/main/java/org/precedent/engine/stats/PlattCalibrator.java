@@ -1,4 +1,4 @@
-package org.precedent.engine.fusion;
+package org.precedent.engine.stats;
 
 /**
  * Platt's sigmoid, P(right | score f) = 1 / (1 + exp(a * f + b)). The sign convention is Platt's
