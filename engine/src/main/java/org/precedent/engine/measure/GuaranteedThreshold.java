@@ -5,17 +5,20 @@ import java.util.List;
 
 /**
  * Picks the reply threshold with the greatest coverage whose precision is guaranteed, with high
- * probability, to reach a target, following Selection with Guaranteed Risk (SGR; Geifman and
- * El-Yaniv 2017), stated here for precision = 1 - risk.
+ * probability, to reach a target. The bound is SGR's (Selection with Guaranteed Risk; Geifman and
+ * El-Yaniv 2017), stated here for precision = 1 - risk: the one-sided Clopper-Pearson lower bound
+ * on the precision of the answers accepted, at delta split over the thresholds tried (Bonferroni).
  *
- * <p>Held-out answers are sorted by confidence. A binary search over that order runs ceil(log2 n)
- * steps; at each it accepts every answer with confidence >= the probed one and computes the one-sided
- * Clopper-Pearson lower bound on precision at delta / ceil(log2 n). Splitting delta over the steps
- * (Bonferroni) keeps the overall chance that any certified threshold is wrong below delta. If the
- * bound reaches the target the search moves to lower thresholds, otherwise to higher ones.
- *
- * <p>One widening of SGR's search range: SGR never probes the lowest confidence, so it can never
- * certify answering everything. Here the range starts one below, which costs no extra step.
+ * <p>Which thresholds are tried differs from SGR. SGR binary-searches the answers sorted by
+ * confidence, which assumes precision falls as coverage grows: one failed probe sends it to higher
+ * thresholds for good. A well-ranked model is often sure and wrong on a few answers at the very
+ * top, and then SGR's first probe fails although a far larger coverage would certify. So the same
+ * budget, K = ceil(log2 n) thresholds at delta / K each, is spent on a grid fixed before any label
+ * is looked at: accept the k/K most confident answers, for k = 1..K, and keep the largest that
+ * certifies. A union bound over a finite set of candidate thresholds chosen without the labels is
+ * valid whatever the shape of the precision curve (Angelopoulos, Bates, Candes, Jordan and Lei
+ * 2021, "Learn then Test", Bonferroni correction). The price is resolution: the certified coverage
+ * is a multiple of 1/K of the answers (ties in confidence can only add to it).
  */
 public final class GuaranteedThreshold {
   /** Default target precision for automatic replies. */
@@ -58,35 +61,20 @@ public final class GuaranteedThreshold {
     double correctedDelta = delta / steps;
     int minimal = minimalSample(targetPrecision, correctedDelta);
 
-    // Probe z in 1..n means "threshold = z-th lowest confidence"; lo = 0 lets z = 1 be probed.
-    int lo = 0;
-    int hi = n;
-    int tried = 0;
     int bestStart = -1;
     double bestBound = Double.NaN;
-    while (hi - lo > 1 && tried < steps) {
-      int z = lo + (hi - lo + 1) / 2;
-      int start = firstWithSameConfidence(confidence, z - 1);
+    for (int k = 1; k <= steps; k++) {
+      // The k/K most confident answers, and every answer as confident as the least of them.
+      int wanted = (int) Math.ceil((double) n * k / steps);
+      int start = firstWithSameConfidence(confidence, n - wanted);
       int accepted = n - start;
       double bound = Proportions.clopperPearsonLower(rightFrom[start], accepted, correctedDelta);
-      tried++;
-      if (bound >= targetPrecision) {
-        hi = z;
+      if (bound >= targetPrecision && (bestStart < 0 || start < bestStart)) {
         bestStart = start;
         bestBound = bound;
-      } else {
-        lo = z;
       }
     }
-    if (tried == 0) {
-      // A single answer: the loop range is already one wide, so probe it directly.
-      tried = 1;
-      double bound = Proportions.clopperPearsonLower(rightFrom[0], n, correctedDelta);
-      if (bound >= targetPrecision) {
-        bestStart = 0;
-        bestBound = bound;
-      }
-    }
+    int tried = steps;
 
     if (bestStart >= 0) {
       int accepted = n - bestStart;
@@ -110,7 +98,7 @@ public final class GuaranteedThreshold {
         start > 0 ? ascending[start - 1] : Double.NEGATIVE_INFINITY);
   }
 
-  /** ceil(log2 n), at least 1: the number of binary-search steps, and the Bonferroni divisor. */
+  /** ceil(log2 n), at least 1: the number of thresholds tried, and the Bonferroni divisor. */
   static int searchSteps(int n) {
     return n <= 2 ? 1 : 32 - Integer.numberOfLeadingZeros(n - 1);
   }

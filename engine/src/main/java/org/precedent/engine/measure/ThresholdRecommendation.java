@@ -14,7 +14,7 @@ import java.util.Objects;
  * @param precisionLowerBound one-sided Clopper-Pearson lower bound on precision at the corrected
  *                            delta; NaN unless OK
  * @param sampleSize          how many held-out answers were used
- * @param thresholdsTried     how many thresholds the binary search evaluated
+ * @param thresholdsTried     how many thresholds the search evaluated
  * @param targetPrecision     the precision the bound had to reach
  * @param correctedDelta      delta divided by ceil(log2 n), the Bonferroni share of each tried threshold
  * @param minimalSampleNeeded the fewest accepted answers that, all right, could certify the target at

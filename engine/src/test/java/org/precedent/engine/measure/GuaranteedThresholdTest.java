@@ -61,11 +61,12 @@ class GuaranteedThresholdTest {
   }
 
   @Test
-  void findsTheExactBoundaryOnAPerfectlySortedSet() {
+  void findsTheLargestGridCoverageBelowTheExactBoundaryOnAPerfectlySortedSet() {
     // By construction: 1000 distinct confidences, top 700 right, bottom 300 wrong. Accepting 700 + j
     // certifies 95% exactly when P(X >= 700; 700 + j, 0.95) <= 0.005 (the lower bound is >= 0.95 iff
     // the tail at 0.95 is at most alpha, Clopper and Pearson 1934). The largest such j is found here by
-    // direct binomial summation; the search is monotone in this region, so it must land there.
+    // direct binomial summation; the grid tries the top 100, 200, ..., 1000 answers (K = 10), so it
+    // lands on the largest multiple of 100 at or below 700 + j.
     List<ScoredAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 1000; i++) {
       answers.add(new ScoredAnswer(1.0 - i / 1000.0, i < 700));
@@ -74,13 +75,35 @@ class GuaranteedThresholdTest {
     while (BinomialTail.atLeast(700, 700 + j + 1, 0.95) <= 0.005) {
       j++;
     }
-    assertTrue(j > 0, "the boundary should lie among the wrong answers");
+    assertTrue(j > 0 && j < 100, "the boundary should lie among the first wrong answers");
     ThresholdRecommendation r = GuaranteedThreshold.recommend(answers);
     assertEquals(ThresholdRecommendation.Status.OK, r.status());
-    assertEquals((700 + j) / 1000.0, r.coverage(), 1e-12);
-    assertEquals(1.0 - (700 + j - 1) / 1000.0, r.threshold(), 1e-12);
-    assertEquals(700.0 / (700 + j), r.empiricalPrecision(), 1e-12);
+    assertEquals(0.7, r.coverage(), 1e-12);
+    assertEquals(1.0 - 699 / 1000.0, r.threshold(), 1e-12);
+    assertEquals(1.0, r.empiricalPrecision(), 1e-12);
     assertEquals(10, r.thresholdsTried());
+  }
+
+  @Test
+  void certifiesALargeCoverageWhenTheMostConfidentAnswersHoldAFewWrongOnes() {
+    // By construction: 600 answers; the 12 most confident are wrong (a model sure and mistaken), the
+    // next 468 right, the last 120 wrong. Precision is not monotone in coverage: the top half, 288
+    // right of 300, does not certify 95% at delta / 10 = 0.005 (its binomial tail at 0.95 exceeds
+    // 0.005; Clopper and Pearson 1934), so a binary search that starts there (SGR, Geifman and
+    // El-Yaniv 2017) would only look at higher thresholds and fail. The top 480 (468 right) do
+    // certify, and the grid tries them (k = 8 of K = 10): a union bound over thresholds fixed
+    // before the labels holds for any curve (Angelopoulos et al. 2021, Learn then Test).
+    List<ScoredAnswer> answers = new ArrayList<>();
+    for (int i = 0; i < 600; i++) {
+      answers.add(new ScoredAnswer(1.0 - i / 1000.0, i >= 12 && i < 480));
+    }
+    assertTrue(BinomialTail.atLeast(288, 300, 0.95) > 0.005, "the top half must not certify");
+    assertTrue(BinomialTail.atLeast(468, 480, 0.95) <= 0.005, "the top 480 must certify");
+    assertTrue(BinomialTail.atLeast(468, 540, 0.95) > 0.005, "the top 540 must not certify");
+    ThresholdRecommendation r = GuaranteedThreshold.recommend(answers);
+    assertEquals(ThresholdRecommendation.Status.OK, r.status());
+    assertEquals(0.8, r.coverage(), 1e-12);
+    assertEquals(468.0 / 480, r.empiricalPrecision(), 1e-12);
   }
 
   @Test
@@ -133,7 +156,7 @@ class GuaranteedThresholdTest {
 
   @Test
   void neverTriesMoreThanCeilLog2NThresholds() {
-    // SGR (Geifman and El-Yaniv 2017) runs ceil(log2 n) binary-search steps; delta is split over them.
+    // As SGR's binary search (Geifman and El-Yaniv 2017), ceil(log2 n) thresholds; delta is split over them.
     Random random = new Random(3);
     for (int n : new int[] {1, 2, 3, 5, 8, 9, 100, 1023, 1024, 1025}) {
       List<ScoredAnswer> answers = new ArrayList<>();
