@@ -7,6 +7,8 @@
     no_candidate: 'No past answer is close enough to propose.',
     safety_rule: 'The question touches a safety rule, so a person must answer.',
     human_only: 'This kind of question is answered by people only.',
+    answer_incomplete: 'The best answer lacks a detail that was removed from past replies; '
+      + 'a person fills it in.',
     below_threshold: 'Precedent is not sure enough to reply on its own.',
   };
 

@@ -15,13 +15,13 @@ import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.RerankerConfig;
-import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.IngestReport;
 import org.precedent.knowledge.ingest.Ingestor;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Aggregation;
 import org.precedent.knowledge.retrieve.CandidateRecall;
@@ -84,8 +84,12 @@ final class DemoCommand implements Callable<Integer> {
 
     ColumnMapping mapping = ColumnMapping.fromFile(dir.resolve("mapping.properties"), Map.of());
     DataDir dataDir = new DataDir(data);
+    dataDir.makePrivate();
+    // The utility's own 24-hour line stays in its answers; customers' numbers are redacted.
+    byte[] ownDetails = Files.readAllBytes(dir.resolve("own-details.txt"));
+    AtomicFiles.write(dataDir.ownDetails(), o -> o.write(ownDetails));
     AnswerGrouper grouper = AnswerGrouper.standard();
-    Ingestor ingestor = new Ingestor(dataDir, TextCleaner.standard(), grouper);
+    Ingestor ingestor = Ingestor.of(dataDir, grouper);
     Path history = dir.resolve("tickets.csv");
     IngestReport report = ingestor.ingest(history, ExportFormat.CSV, mapping,
         new Progress("reading tickets.csv", "rows", System.err),

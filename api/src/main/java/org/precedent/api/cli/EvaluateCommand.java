@@ -21,7 +21,6 @@ import org.precedent.engine.evaluate.ReportFiles;
 import org.precedent.engine.evaluate.SystemReport;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.measure.ThresholdRecommendation;
-import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ExportFormat;
@@ -80,8 +79,8 @@ final class EvaluateCommand implements Callable<Integer> {
     DataDir dataDir = new DataDir(parent.dataDir());
     EvaluationReport previous = compareTo == null ? null : ReportFiles.readJson(compareTo);
     // The file is read before the model is opened: a wrong file name is said at once.
-    Ingestor.ParsedExport parsed = new Ingestor(dataDir, TextCleaner.standard(),
-        AnswerGrouper.standard())
+    // Read as ingest reads, so that held-out replies keep the organisation's own details too.
+    Ingestor.ParsedExport parsed = Ingestor.of(dataDir, AnswerGrouper.standard())
         .parse(file, ExportFormat.of(file), columns.mapping(file, spec), Progress.silent());
     for (var p : parsed.problems()) {
       spec.commandLine().getErr().println("skipped: " + p);

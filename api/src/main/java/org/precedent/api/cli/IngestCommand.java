@@ -4,7 +4,6 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
@@ -66,8 +65,15 @@ final class IngestCommand implements Callable<Integer> {
       ColumnMapping mapping = columns.mapping(file, spec);
       ExportFormat exportFormat = format == null ? ExportFormat.of(file)
           : ExportFormat.valueOf(format.toUpperCase(Locale.ROOT));
-      Ingestor ingestor = new Ingestor(new DataDir(parent.dataDir()), TextCleaner.standard(),
-          AnswerGrouper.standard());
+      DataDir dataDir = new DataDir(parent.dataDir());
+      Ingestor ingestor;
+      try {
+        ingestor = Ingestor.of(dataDir, AnswerGrouper.standard());
+      } catch (java.io.IOException e) {
+        err.println("precedent ingest: " + e.getMessage());
+        err.println("nothing was stored; the data directory is as it was.");
+        return PrecedentCommand.FAILED;
+      }
       report = ingestor.ingest(file, exportFormat, mapping,
           progress("reading " + file.getFileName(), "rows"), progress("indexing", "tickets"));
     } catch (IllegalArgumentException e) {
@@ -103,6 +109,15 @@ final class IngestCommand implements Callable<Integer> {
     for (IngestReport.GroupSize g : r.groupSizes()) {
       out.printf(Locale.ROOT, "  %-14s %5d  %-12s %s%n", g.id(), g.size(),
           g.category() == null ? "-" : g.category(), Text.abbreviate(g.canonical(), 60));
+    }
+    if (!r.proposedOwnDetails().isEmpty()) {
+      out.println("redacted from the replies of several answer groups, so perhaps your own: if so, "
+          + "add these lines to " + new DataDir(parent.dataDir()).ownDetails()
+          + " and ingest again to keep them in answers:");
+      for (IngestReport.ProposedDetail d : r.proposedOwnDetails()) {
+        out.printf(Locale.ROOT, "  %s %-40s # in %,d groups, %,d replies%n", d.kind(), d.value(),
+            d.groups(), d.tickets());
+      }
     }
   }
 }

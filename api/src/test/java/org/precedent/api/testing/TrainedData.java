@@ -69,7 +69,7 @@ public final class TrainedData {
     Ingestor.ParsedExport all = ingestor.parse(demo.resolve("tickets.csv"), ExportFormat.CSV,
         mapping, Progress.silent());
     List<Ticket> some = all.tickets().subList(0, TICKETS);
-    ingestor.store(new Ingestor.ParsedExport(all.file(), TICKETS, 0, some, List.of()),
+    ingestor.store(new Ingestor.ParsedExport(all.file(), TICKETS, 0, some, List.of(), List.of()),
         Progress.silent());
     Files.copy(demo.resolve("safety.rules"), dir.resolve("safety.rules"));
     RerankerConfig tiny = RerankerConfig.defaults().withSizes(32, 64).withEpochs(2, 1)

@@ -68,6 +68,14 @@ public final class Advisor {
           "No past question shares a word with this one, so there is no answer to propose.",
           truncated);
     }
+    List<String> missing = SafetyGate.missingDetails(best);
+    if (!missing.isEmpty()) {
+      return new Decision(Outcome.HAND_OFF, HandOffReason.ANSWER_INCOMPLETE, question, groupId,
+          null, confidence, threshold, null, null, candidates, "The best answer (" + groupId
+              + ") lacks a detail that was redacted from the past replies ("
+              + String.join(", ", missing) + "): a person should fill it in before it is sent.",
+          truncated);
+    }
     if (confidence < threshold) {
       return new Decision(Outcome.HAND_OFF, HandOffReason.BELOW_THRESHOLD, question, groupId,
           null, confidence, threshold, null, null, candidates, String.format(Locale.ROOT,

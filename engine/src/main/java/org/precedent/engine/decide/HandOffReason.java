@@ -8,6 +8,11 @@ public enum HandOffReason {
   SAFETY_RULE,
   /** The best answer group, or the ticket's category, is marked for people only. */
   HUMAN_ONLY,
+  /**
+   * The best answer still holds a redacted detail (a placeholder such as [PHONE]): as written it
+   * lacks what a person must fill in, however sure the model is that it fits.
+   */
+  ANSWER_INCOMPLETE,
   /** The confidence is below the threshold in force. */
   BELOW_THRESHOLD
 }

@@ -1,14 +1,17 @@
 package org.precedent.engine.decide;
 
+import java.util.List;
 import java.util.Optional;
 import org.precedent.engine.safety.SafetyFinding;
 import org.precedent.engine.safety.SafetyPolicy;
+import org.precedent.knowledge.clean.Placeholders;
 import org.precedent.knowledge.group.AnswerGroup;
 
 /**
- * The safety gate in front of every automatic reply: the question's words, the ticket's category,
- * and the best answer (its group and its own category). The advisor and the evaluation both ask it,
- * so that what an evaluation counts as handed off is what the service hands off.
+ * The gate in front of every automatic reply: the safety rules (the question's words, the ticket's
+ * category, the best answer's group and its own category), and an answer that still lacks a
+ * redacted detail. The advisor and the evaluation both ask it, so that what an evaluation counts
+ * as handed off is what the service hands off.
  */
 public final class SafetyGate {
   private SafetyGate() {}
@@ -28,5 +31,20 @@ public final class SafetyGate {
       finding = safety.check(question, best.category(), best.id());
     }
     return finding;
+  }
+
+  /**
+   * The placeholders in the answer that would be sent: when there are any, it is not sent
+   * automatically (the advisor hands off with {@link HandOffReason#ANSWER_INCOMPLETE}).
+   */
+  public static List<String> missingDetails(AnswerGroup best) {
+    return best == null ? List.of() : Placeholders.in(best.canonical());
+  }
+
+  /** Whether the service would hand the question off whatever the confidence. */
+  public static boolean handsOff(SafetyPolicy safety, String question, String category,
+      AnswerGroup best) {
+    return (safety != null && check(safety, question, category, best).isPresent())
+        || !missingDetails(best).isEmpty();
   }
 }

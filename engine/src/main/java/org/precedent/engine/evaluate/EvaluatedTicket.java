@@ -18,8 +18,9 @@ import org.precedent.engine.measure.ScoredAnswer;
  * @param rankOfRight 1-based rank of the right answer among the candidates; 0 when it is absent or
  *                    the ticket is out of scope
  * @param confidence  the system's confidence in its top candidate, in [0, 1]
- * @param safetyGate  whether the safety gate (a safety rule, a people-only category or answer)
- *                    hands this ticket to a person in service, whatever the confidence
+ * @param safetyGate  whether the gate before the threshold (a safety rule, a people-only category
+ *                    or answer, an answer lacking a redacted detail) hands this ticket to a person
+ *                    in service, whatever the confidence
  */
 public record EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
     double confidence, boolean safetyGate) {

@@ -54,9 +54,9 @@ public final class HeldOutRuns {
       for (ScoringSystem s : ScoringSystem.values()) {
         Ranked ranked = ranker.rank(s, scoring.candidates(), scoring.scores());
         // Each system would send its own best answer, which the gate looks at too.
-        boolean gated = safety != null && SafetyGate.check(safety, q.question(), q.category(),
+        boolean gated = safety != null && SafetyGate.handsOff(safety, q.question(), q.category(),
             ranked.candidates().isEmpty() ? null
-                : ranked.candidates().get(0).candidate().group()).isPresent();
+                : ranked.candidates().get(0).candidate().group());
         bySystem.get(s).add(new EvaluatedTicket(q.ticketId(),
             q.category() == null ? "(none)" : q.category(), q.rightGroup() != null,
             rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated));

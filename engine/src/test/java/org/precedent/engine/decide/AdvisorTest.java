@@ -39,6 +39,8 @@ class AdvisorTest {
   static Path tmp;
 
   static Knowledge knowledge;
+  static Knowledge callBack;
+  static Knowledge callBackDeclared;
   static Scorer scorer;
   static FusionModel fusion;
   static final double TOP_CONFIDENCE = 1 / (1 + Math.exp(-2));
@@ -58,6 +60,8 @@ class AdvisorTest {
         ExportFormat.CSV, ColumnMapping.of(Map.of("question", "text", "label", "label",
             "category", "category")), Progress.silent(), Progress.silent());
     knowledge = Knowledge.open(data).orElseThrow();
+    callBack = ingestCallBackAnswers(tmp.resolve("call-back"), false);
+    callBackDeclared = ingestCallBackAnswers(tmp.resolve("call-back-declared"), true);
     scorer = new Scorer(TinyModel.get().model());
     List<SystemModel> systems = Arrays.stream(ScoringSystem.values()).map(s -> {
       double[] weights = new double[s.features().size()];
@@ -77,6 +81,30 @@ class AdvisorTest {
   @AfterAll
   static void tearDown() throws Exception {
     knowledge.close();
+    callBack.close();
+    callBackDeclared.close();
+  }
+
+  /**
+   * Three past replies that give the desk's number (from Ofcom's range reserved for drama, so no
+   * one's): redacted unless the data directory declares it as the desk's own.
+   */
+  private static Knowledge ingestCallBackAnswers(Path dir, boolean declared) throws Exception {
+    DataDir data = new DataDir(dir);
+    if (declared) {
+      Files.createDirectories(dir);
+      Files.writeString(data.ownDetails(), "phone 01632 960999\n");
+    }
+    Path csv = Files.writeString(dir.resolveSibling(dir.getFileName() + ".csv"), """
+        id,question,reply
+        1,no water at all this morning,Please call our 24-hour line on 01632 960999.
+        2,there is no water from my taps,Please call our 24-hour line on 01632 960999.
+        3,no water in the house since six,Please call our 24-hour line on 01632 960999.
+        """);
+    Ingestor.of(data, AnswerGrouper.standard()).ingest(csv, ExportFormat.CSV,
+        ColumnMapping.of(Map.of("id", "id", "question", "question", "reply", "reply")),
+        Progress.silent(), Progress.silent());
+    return Knowledge.open(data).orElseThrow();
   }
 
   private Decision decide(String question, String category, Thresholds thresholds,
@@ -175,5 +203,23 @@ class AdvisorTest {
     assertEquals(HandOffReason.NO_CANDIDATE, d.reason());
     assertEquals(0, d.confidence());
     assertTrue(d.candidates().isEmpty());
+  }
+
+  @Test
+  void anAnswerLackingARedactedDetailIsHandedOffWhateverTheConfidence() {
+    Decision d = new Advisor(callBack.retriever(), scorer, fusion, SafetyPolicy.defaults(),
+        Thresholds.global(0)).decide("no water at all today", null);
+    assertEquals(Outcome.HAND_OFF, d.outcome());
+    assertEquals(HandOffReason.ANSWER_INCOMPLETE, d.reason());
+    assertNull(d.reply());
+    assertTrue(d.explanation().contains("[PHONE]"), d.explanation());
+  }
+
+  @Test
+  void theDesksDeclaredNumberStaysInTheAnswerSoItCanBeSent() {
+    Decision d = new Advisor(callBackDeclared.retriever(), scorer, fusion,
+        SafetyPolicy.defaults(), Thresholds.global(0)).decide("no water at all today", null);
+    assertEquals(Outcome.REPLY, d.outcome(), d.explanation());
+    assertEquals("Please call our 24-hour line on 01632 960999.", d.reply());
   }
 }

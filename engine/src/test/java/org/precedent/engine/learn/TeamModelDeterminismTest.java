@@ -66,7 +66,7 @@ class TeamModelDeterminismTest {
     Ingestor.ParsedExport all = ingestor.parse(demo.resolve("tickets.csv"), ExportFormat.CSV,
         mapping, Progress.silent());
     List<Ticket> some = all.tickets().subList(0, TICKETS);
-    ingestor.store(new Ingestor.ParsedExport(all.file(), TICKETS, 0, some, List.of()),
+    ingestor.store(new Ingestor.ParsedExport(all.file(), TICKETS, 0, some, List.of(), List.of()),
         Progress.silent());
     RerankerConfig tiny = RerankerConfig.defaults().withSizes(16, 32).withEpochs(2, 1)
         .withMaxTokens(24, 16);

@@ -23,6 +23,14 @@ public final class Placeholders {
 
   private Placeholders() {}
 
+  /**
+   * The placeholders {@code text} holds, in the order the redaction rules run: an answer that holds
+   * one lacks a detail that was redacted from it, and cannot be sent as written.
+   */
+  public static List<String> in(String text) {
+    return ALL.stream().filter(text::contains).toList();
+  }
+
   /** Every placeholder, in the order the redaction rules run; the set is unmodifiable. */
   public static Set<String> all() {
     return ALL;

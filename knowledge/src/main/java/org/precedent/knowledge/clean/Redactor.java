@@ -25,14 +25,14 @@ final class Redactor {
   private static final Pattern ACCOUNT =
       Pattern.compile("(?<![A-Za-z0-9])(?i:tvw)[ -]?\\d{8}(?!\\d)");
 
-  private static final Redactor STANDARD = new Redactor(List.of(
-      new PatternRule(EMAIL, Placeholders.EMAIL, t -> t.indexOf('@') >= 0),
-      new IbanRule(),
-      new CardRule(),
-      new PatternRule(ACCOUNT, Placeholders.ACCOUNT, t -> Scan.containsIgnoreCase(t, "tvw")),
+  private static final PatternRule EMAILS =
+      new PatternRule(EMAIL, Placeholders.EMAIL, t -> t.indexOf('@') >= 0);
+  private static final List<PatternRule> PHONES = List.of(
       new PatternRule(PhonePatterns.E164, Placeholders.PHONE, t -> t.indexOf('+') >= 0),
       new PatternRule(PhonePatterns.UK_NATIONAL, Placeholders.PHONE, t -> Scan.hasDigits(t, 10)),
-      new PatternRule(PhonePatterns.NANP, Placeholders.PHONE, t -> Scan.hasDigits(t, 10))));
+      new PatternRule(PhonePatterns.NANP, Placeholders.PHONE, t -> Scan.hasDigits(t, 10)));
+
+  private static final Redactor STANDARD = keeping(OwnDetails.NONE);
 
   private final List<Rule> rules;
 
@@ -42,6 +42,33 @@ final class Redactor {
 
   static Redactor standard() {
     return STANDARD;
+  }
+
+  /** Every rule, in order, with the organisation's own e-mail addresses and numbers left alone. */
+  static Redactor keeping(OwnDetails own) {
+    List<Rule> rules = new java.util.ArrayList<>();
+    rules.add(EMAILS.keeping(own::keepsEmail));
+    rules.add(new IbanRule());
+    rules.add(new CardRule());
+    rules.add(new PatternRule(ACCOUNT, Placeholders.ACCOUNT, t -> Scan.containsIgnoreCase(t, "tvw")));
+    for (PatternRule phone : PHONES) {
+      rules.add(phone.keeping(own::keepsPhone));
+    }
+    return new Redactor(rules);
+  }
+
+  /**
+   * The e-mail addresses and phone numbers in {@code text}, as written, in the order the rules
+   * find them; what redaction would replace, unless kept.
+   */
+  static List<String> contacts(String text) {
+    List<String> found = new java.util.ArrayList<>(EMAILS.matches(text));
+    String rest = EMAILS.apply(text);
+    for (PatternRule phone : PHONES) {
+      found.addAll(phone.matches(rest));
+      rest = phone.apply(rest);
+    }
+    return found;
   }
 
   String redact(String text) {

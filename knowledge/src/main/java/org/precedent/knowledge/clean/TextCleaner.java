@@ -26,6 +26,20 @@ public final class TextCleaner {
     return STANDARD;
   }
 
+  /** The standard cleaner, but leaving the organisation's own contact details in the text. */
+  public static TextCleaner keeping(OwnDetails own) {
+    return own.isEmpty() ? STANDARD
+        : new TextCleaner(Redactor.keeping(own), STANDARD.questions, STANDARD.replies);
+  }
+
+  /**
+   * The e-mail addresses and phone numbers that redaction finds in {@code raw}, as written (before
+   * any are kept): what ingest counts to propose the organisation's own details.
+   */
+  public static java.util.List<String> contactsIn(String raw) {
+    return Redactor.contacts(Whitespace.normalise(Objects.requireNonNull(raw, "raw")));
+  }
+
   /** A customer's question without greeting, sign-off, signature or quoted mail, redacted. */
   public String cleanQuestion(String raw) {
     return clean(raw, questions);

@@ -15,14 +15,25 @@ import java.util.List;
  * @param groupSizes   size of each answer group afterwards, largest first
  * @param oneOffs      one-off tickets afterwards
  * @param method       how the groups were formed
+ * @param proposedOwnDetails contact details redacted from the replies of several answer groups,
+ *                     most groups first: likely the organisation's own, to declare as such
  */
 public record IngestReport(String file, long read, long stored, long updated, long rejected,
     List<RowProblem> problems, int totalTickets, List<GroupSize> groupSizes, int oneOffs,
-    String method) {
+    String method, List<ProposedDetail> proposedOwnDetails) {
   public IngestReport {
     problems = List.copyOf(problems);
     groupSizes = List.copyOf(groupSizes);
+    proposedOwnDetails = List.copyOf(proposedOwnDetails);
   }
+
+  /**
+   * A phone number or e-mail address found in the replies of {@code groups} answer groups.
+   *
+   * @param kind  "phone" or "email", as the own-details file names it
+   * @param value as first written in a reply
+   */
+  public record ProposedDetail(String kind, String value, int groups, int tickets) {}
 
   /** One answer group's size, with its category and the start of its canonical answer. */
   public record GroupSize(String id, int size, String category, String canonical) {}

@@ -5,11 +5,16 @@ import java.nio.channels.FileLock;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
+import java.util.Objects;
 import java.util.Optional;
+import java.util.Set;
+import org.precedent.knowledge.clean.OwnDetails;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
@@ -33,10 +38,26 @@ public final class Ingestor {
   private final TextCleaner cleaner;
   private final AnswerGrouper grouper;
 
+  /**
+   * A contact detail in the replies of this many answer groups is proposed as the organisation's
+   * own: a customer's number turns up in their own tickets, not across unrelated answers. Three is
+   * this project's choice, not a published figure.
+   */
+  static final int PROPOSE_FROM_GROUPS = 3;
+
   public Ingestor(DataDir dataDir, TextCleaner cleaner, AnswerGrouper grouper) {
     this.dataDir = dataDir;
     this.cleaner = cleaner;
     this.grouper = grouper;
+  }
+
+  /**
+   * The ingestor of a data directory: standard cleaning, keeping the organisation's own contact
+   * details declared in it ({@link DataDir#ownDetails()}; an IOException names a bad line).
+   */
+  public static Ingestor of(DataDir dataDir, AnswerGrouper grouper) throws IOException {
+    return new Ingestor(dataDir, TextCleaner.keeping(OwnDetails.read(dataDir.ownDetails())),
+        grouper);
   }
 
   /**
@@ -65,12 +86,22 @@ public final class Ingestor {
     long[] read = {0};
     long[] rejected = {0};
     double[] share = {0};
+    Map<String, Contact> contacts = new HashMap<>();
     reader.read(new LinkedHashSet<>(mapping.mapped().values()), row -> {
       read[0]++;
       Ticket t = validator.validate(row, problems);
       Long first = t == null ? null : lineOfId.putIfAbsent(t.id(), row.line());
       if (t != null && first == null) {
         tickets.add(t);
+        String rawReply = mapping.reply() == null ? null : row.values().get(mapping.reply());
+        if (rawReply != null) {
+          for (String c : TextCleaner.contactsIn(rawReply)) {
+            // A detail still in the cleaned reply was kept as the organisation's own already.
+            if (!t.reply().contains(c)) {
+              contacts.computeIfAbsent(Contact.key(c), k -> new Contact(c)).tickets.add(t.id());
+            }
+          }
+        }
       } else {
         if (first != null) {
           problems.add(new RowProblem(file.toString(), row.line(), "id", "'" + t.id()
@@ -81,7 +112,25 @@ public final class Ingestor {
       progress.update(read[0], share[0]);
     }, s -> share[0] = s);
     progress.finish(read[0]);
-    return new ParsedExport(file.toString(), read[0], rejected[0], tickets, problems);
+    return new ParsedExport(file.toString(), read[0], rejected[0], tickets, problems,
+        contacts.values().stream().filter(c -> c.tickets.size() >= PROPOSE_FROM_GROUPS)
+            .map(c -> new ContactUse(c.written, List.copyOf(c.tickets))).toList());
+  }
+
+  /** A contact detail found in raw replies, and the tickets whose replies hold it. */
+  private static final class Contact {
+    final String written;
+    final Set<String> tickets = new LinkedHashSet<>();
+
+    Contact(String written) {
+      this.written = written;
+    }
+
+    /** E-mail addresses ignoring case, phone numbers by their digits, as {@link OwnDetails}. */
+    static String key(String written) {
+      return written.indexOf('@') >= 0 ? written.toLowerCase(Locale.ROOT)
+          : written.replaceAll("[^0-9]", "");
+    }
   }
 
   /** Parses {@code file} and stores its valid tickets. */
@@ -123,7 +172,37 @@ public final class Ingestor {
       }
       return new IngestReport(parsed.file(), parsed.read(), stored, updated, parsed.rejected(),
           parsed.problems(), tickets.size(), sizes,
-          grouping.oneOffs().size(), grouping.method());
+          grouping.oneOffs().size(), grouping.method(), proposals(parsed, grouping));
+    }
+  }
+
+  /** Contact details redacted from the replies of several answer groups, most groups first. */
+  private static List<IngestReport.ProposedDetail> proposals(ParsedExport parsed,
+      Grouping grouping) {
+    Map<String, String> groupOf = grouping.groupOfTicket();
+    List<IngestReport.ProposedDetail> proposed = new ArrayList<>();
+    for (ContactUse use : parsed.contacts()) {
+      long groups = use.tickets().stream().map(groupOf::get).filter(Objects::nonNull)
+          .distinct().count();
+      if (groups >= PROPOSE_FROM_GROUPS) {
+        proposed.add(new IngestReport.ProposedDetail(use.written().indexOf('@') >= 0 ? "email"
+            : "phone", use.written(), (int) groups, use.tickets().size()));
+      }
+    }
+    proposed.sort(Comparator.comparingInt(IngestReport.ProposedDetail::groups)
+        .reversed().thenComparing(IngestReport.ProposedDetail::value));
+    return proposed;
+  }
+
+  /**
+   * A contact detail that redaction found in the raw replies of several tickets.
+   *
+   * @param written as first written
+   * @param tickets the tickets whose replies hold it
+   */
+  public record ContactUse(String written, List<String> tickets) {
+    public ContactUse {
+      tickets = List.copyOf(tickets);
     }
   }
 
@@ -135,12 +214,14 @@ public final class Ingestor {
    * @param rejected rows rejected
    * @param tickets  valid tickets, cleaned, one per id
    * @param problems what is wrong with each rejected row, in file order
+   * @param contacts contact details redacted from the replies of at least three tickets
    */
   public record ParsedExport(String file, long read, long rejected, List<Ticket> tickets,
-      List<RowProblem> problems) {
+      List<RowProblem> problems, List<ContactUse> contacts) {
     public ParsedExport {
       tickets = List.copyOf(tickets);
       problems = List.copyOf(problems);
+      contacts = List.copyOf(contacts);
     }
   }
 }

@@ -44,6 +44,11 @@ public final class DataDir {
     return root.resolve("knowledge");
   }
 
+  /** The organisation's own contact details, which redaction keeps ({@code OwnDetails}). */
+  public Path ownDetails() {
+    return root.resolve("own-details.txt");
+  }
+
   public Path models() {
     return root.resolve("models");
   }

@@ -1,5 +1,6 @@
 package org.precedent.knowledge.demo;
 
+import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Path;
@@ -17,6 +18,7 @@ import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
+import org.precedent.knowledge.ingest.IngestReport;
 import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Aggregation;
@@ -39,6 +41,7 @@ class DemoKnowledgeTest {
   static Map<String, String> trainKeys;
   static Map<String, String> heldOutKeys;
   static Ingestor.ParsedExport heldOut;
+  static IngestReport report;
 
   @BeforeAll
   static void ingestDemo() throws Exception {
@@ -46,8 +49,8 @@ class DemoKnowledgeTest {
     ColumnMapping mapping = ColumnMapping.fromFile(dir.resolve("mapping.properties"), Map.of());
     DataDir data = new DataDir(tmp.resolve("data"));
     Ingestor ingestor = new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard());
-    ingestor.ingest(dir.resolve("tickets.csv"), ExportFormat.CSV, mapping, Progress.silent(),
-        Progress.silent());
+    report = ingestor.ingest(dir.resolve("tickets.csv"), ExportFormat.CSV, mapping,
+        Progress.silent(), Progress.silent());
     heldOut = ingestor.parse(dir.resolve("heldout.csv"), ExportFormat.CSV, mapping,
         Progress.silent());
     knowledge = Knowledge.open(data).orElseThrow();
@@ -138,5 +141,14 @@ class DemoKnowledgeTest {
     System.out.printf("held-out reply matching agrees with the answer key on %d of %d%n", right,
         total);
     assertTrue(right >= 0.97 * total, right + " of " + total);
+  }
+
+  @Test
+  void ingestProposesTheDesksOwnNumberAndNoCustomersNumber() {
+    // The demo's own-details.txt declares the desk's number; this ingest did not read it, so the
+    // number was redacted and ingest proposes it. Customers' numbers each sit in one ticket.
+    List<String> proposed = report.proposedOwnDetails().stream()
+        .map(IngestReport.ProposedDetail::value).toList();
+    assertEquals(List.of("01632 960999"), proposed);
   }
 }

@@ -83,6 +83,63 @@ class IngestorTest {
     }
   }
 
+  /** Three answers that each give the desk's number, and one reply with a customer's own. */
+  private static String repliesWithNumbers(String deskNumber) {
+    String[] answers = {
+        "A crew will return within two working days to empty your bin. Questions: call %s.",
+        "You can send a meter reading online at any time, or read it to us on %s.",
+        "We have noted the leak and a team will visit today. For updates call %s."};
+    StringBuilder csv = new StringBuilder(HEADER);
+    for (int a = 0; a < answers.length; a++) {
+      for (int i = 1; i <= 3; i++) {
+        csv.append("A").append(a).append('-').append(i).append(",Help,\"Please help, case ")
+            .append(i).append("\",\"").append(answers[a].formatted(deskNumber))
+            .append("\",c").append(a).append(",2026-03-0").append(i).append("\n");
+      }
+    }
+    // Ofcom's numbers reserved for drama (01632 960xxx, 07700 900xxx): neither is anyone's.
+    csv.append("C-1,Call me,Ring me back please,\"We will ring you back on 07700 900123 today.\","
+        + "c9,2026-03-04\n");
+    return csv.toString();
+  }
+
+  @Test
+  void aNumberInTheRepliesOfThreeGroupsIsProposedAsTheDesksOwnAndACustomersIsNot()
+      throws Exception {
+    IngestReport report = ingest(write("numbers.csv", repliesWithNumbers("01632 960999")));
+    assertEquals(List.of(new IngestReport.ProposedDetail("phone", "01632 960999", 3, 9)),
+        report.proposedOwnDetails());
+    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
+      assertTrue(k.tickets().get("A0-1").reply().contains("[PHONE]"), "not declared yet");
+    }
+  }
+
+  @Test
+  void aDeclaredOwnNumberStaysInAnswersAndIsNoLongerProposed() throws Exception {
+    Files.createDirectories(data.root());
+    Files.writeString(data.ownDetails(), "# the desk\nphone 01632-960-999\n");
+    IngestReport report = Ingestor.of(data, AnswerGrouper.standard()).ingest(
+        write("numbers.csv", repliesWithNumbers("01632 960999")), ExportFormat.CSV, mapping,
+        Progress.silent(), Progress.silent());
+    assertEquals(List.of(), report.proposedOwnDetails());
+    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
+      assertTrue(k.tickets().get("A1-2").reply().contains("01632 960999"),
+          k.tickets().get("A1-2").reply());
+      assertTrue(k.tickets().get("C-1").reply().contains("[PHONE]"), "a customer's number");
+      assertTrue(k.grouping().groups().stream().noneMatch(g -> g.canonical().contains("[PHONE]")));
+    }
+  }
+
+  @Test
+  void aBadLineInTheOwnDetailsFileIsNamedAndNothingIsStored() throws Exception {
+    Files.createDirectories(data.root());
+    Files.writeString(data.ownDetails(), "phone 01632 960999\nfax 01632 960998\n");
+    IOException e = assertThrows(IOException.class,
+        () -> Ingestor.of(data, AnswerGrouper.standard()));
+    assertTrue(e.getMessage().contains("own-details.txt:2"), e.getMessage());
+    assertTrue(Knowledge.open(data).isEmpty());
+  }
+
   @Test
   void reingestingTheSameIdsUpdatesInsteadOfDuplicating() throws Exception {
     Path file = write("good.csv", goodCsv());
