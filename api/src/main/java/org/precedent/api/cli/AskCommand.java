@@ -7,8 +7,8 @@ import java.nio.charset.StandardCharsets;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.function.Consumer;
-import org.precedent.engine.decide.ActiveModel;
-import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.decide.InForce;
+import org.precedent.engine.decide.Pipeline;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.retrieve.RetrievalSettings;
@@ -57,10 +57,10 @@ final class AskCommand implements Callable<Integer> {
       return retrievalOnly(dataDir, out);
     }
     NumericLibrary.announce(spec.commandLine().getErr());
-    try (ActiveModel active = ActiveModel.open(dataDir)) {
-      Advisor advisor = active.advisor();
+    try (InForce active = InForce.open(dataDir)) {
+      Pipeline pipeline = active.pipeline();
       DecisionPrinter printer = new DecisionPrinter(out, candidates);
-      return eachQuestion(out, q -> printer.print(advisor.decide(q, category)));
+      return eachQuestion(out, q -> printer.print(pipeline.decide(q, category)));
     }
   }
 

@@ -12,12 +12,11 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
 import java.util.concurrent.Callable;
-import org.precedent.engine.decide.ActiveModel;
-import org.precedent.engine.decide.Ranker;
+import org.precedent.engine.decide.InForce;
 import org.precedent.engine.evaluate.EvaluatedTicket;
 import org.precedent.engine.evaluate.HeldOutRuns;
 import org.precedent.engine.evaluate.SystemRun;
-import org.precedent.engine.learn.FusionQuestion;
+import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.rerank.RerankerConfig;
@@ -110,15 +109,14 @@ final class ClincBenchmark implements Callable<Integer> {
       out.println(report.summary());
     }
     out.printf(Locale.ROOT, "trained in %.0f s%n", (System.nanoTime() - start) / 1e9);
-    try (ActiveModel active = ActiveModel.open(dataDir)) {
-      Ranker ranker = new Ranker(active.fusion());
+    try (InForce active = InForce.open(dataDir)) {
       List<HeldOutRuns.HeldOutQuestion> val = validation.stream().map(v ->
           new HeldOutRuns.HeldOutQuestion(v.ticketId(), v.question(), "clinc", v.rightGroup()))
           .toList();
-      List<SystemRun> valRuns = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
-          ranker, val, new Progress("scoring validation", "queries", System.err));
-      List<SystemRun> testRuns = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
-          ranker, test, new Progress("scoring test", "queries", System.err));
+      List<SystemRun> valRuns = HeldOutRuns.modelAlone(active.pipeline(), val,
+          new Progress("scoring validation", "queries", System.err));
+      List<SystemRun> testRuns = HeldOutRuns.modelAlone(active.pipeline(), test,
+          new Progress("scoring test", "queries", System.err));
       out.println();
       out.println("system            threshold  in-scope accuracy  out-of-scope recall");
       for (int s = 0; s < testRuns.size(); s++) {

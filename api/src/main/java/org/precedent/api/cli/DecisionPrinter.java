@@ -5,7 +5,7 @@ import java.util.List;
 import java.util.Locale;
 import org.precedent.engine.decide.Decision;
 import org.precedent.engine.decide.Outcome;
-import org.precedent.engine.decide.ScoredCandidate;
+import org.precedent.engine.fusion.ScoredCandidate;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.retrieve.Evidence;
 

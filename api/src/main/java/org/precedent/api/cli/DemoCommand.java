@@ -9,8 +9,9 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Callable;
-import org.precedent.engine.decide.ActiveModel;
-import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.decide.InForce;
+import org.precedent.engine.decide.Pipeline;
+import org.precedent.engine.evaluate.HeldOutEvaluation;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.rerank.ModelLoadException;
@@ -121,8 +122,8 @@ final class DemoCommand implements Callable<Integer> {
 
     }
 
-    Files.copy(dir.resolve("safety.rules"), data.resolve("safety.rules"),
-        java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+    byte[] rules = Files.readAllBytes(dir.resolve("safety.rules"));
+    AtomicFiles.write(dataDir.safetyRules(), o -> o.write(rules));
     out.flush();
     NumericLibrary.announce(spec.commandLine().getErr());
     try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
@@ -151,23 +152,24 @@ final class DemoCommand implements Callable<Integer> {
 
     out.printf(Locale.ROOT, "%n[4] evaluation on the held-out split%n");
     out.flush();
-    try (ActiveModel active = ActiveModel.open(dataDir)) {
-      EvaluateCommand.Evaluation evaluation = EvaluateCommand.evaluate(active, heldOut,
-          "demo held-out split", 0.95, data.resolve("reports"), null);
+    try (InForce active = InForce.open(dataDir)) {
+      HeldOutEvaluation evaluation = HeldOutEvaluation.run(dataDir, active, heldOut,
+          "demo held-out split", 0.95, dataDir.reports(), null,
+          new Progress("evaluating", "tickets", System.err));
       EvaluateCommand.print(out, evaluation);
-      EvaluateCommand.applyThreshold(out, dataDir, active, evaluation.report());
+      EvaluateCommand.applyThreshold(out, dataDir, active, evaluation);
     }
 
     out.printf(Locale.ROOT, "%n[5] decisions for sample questions%n%n");
-    try (ActiveModel active = ActiveModel.open(dataDir)) {
-      Advisor advisor = active.advisor();
+    try (InForce active = InForce.open(dataDir)) {
+      Pipeline pipeline = active.pipeline();
       DecisionPrinter printer = new DecisionPrinter(out, 2);
       for (String q : SAMPLES) {
-        printer.print(advisor.decide(q, null));
+        printer.print(pipeline.decide(q, null));
       }
     }
     out.println("Ask more: ./precedent ask --data " + data + " \"my bin was not collected\"");
-    out.println("The evaluation report is in " + data.resolve("reports"));
+    out.println("The evaluation report is in " + dataDir.reports());
     if (noServe) {
       return 0;
     }

@@ -13,8 +13,8 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.concurrent.Callable;
-import org.precedent.engine.decide.ActiveModel;
-import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.decide.InForce;
+import org.precedent.engine.decide.Pipeline;
 import org.precedent.engine.decide.Outcome;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.ReportFiles;
@@ -96,7 +96,7 @@ final class FiguresCommand implements Callable<Integer> {
         return status;
       }
       figures = measure(new DataDir(data));
-      Path file = data.resolve("reports").resolve(MEASURED_FILE);
+      Path file = new DataDir(data).reports().resolve(MEASURED_FILE);
       figures.save(file);
       out.println();
       out.println("measured figures: " + file);
@@ -137,16 +137,16 @@ final class FiguresCommand implements Callable<Integer> {
    * figures, and how many sample questions it answers automatically at the threshold in force.
    */
   static MeasuredFigures measure(DataDir dataDir) throws IOException {
-    EvaluationReport report = ReportFiles.readJson(dataDir.root().resolve("reports").resolve("latest.json"));
-    try (ActiveModel active = ActiveModel.open(dataDir)) {
+    EvaluationReport report = ReportFiles.readJson(dataDir.latestReport());
+    try (InForce active = InForce.open(dataDir)) {
       ModelStore store = new ModelStore(dataDir.models());
       TrainingMetrics training = store.trainingMetrics(active.version()).orElseThrow(() -> new IOException(
           store.directory(active.version()) + ": the model version has no training figures"));
       Map<String, Double> values = new LinkedHashMap<>(MeasuredFigures.of(report));
       values.putAll(MeasuredFigures.of(training));
-      Advisor advisor = active.advisor();
+      Pipeline pipeline = active.pipeline();
       long replied = DemoCommand.SAMPLES.stream()
-          .filter(q -> advisor.decide(q, null).outcome() == Outcome.REPLY).count();
+          .filter(q -> pipeline.decide(q, null).outcome() == Outcome.REPLY).count();
       values.put("samples.replied", (double) replied);
       Map<String, String> with = new LinkedHashMap<>();
       with.put("date", Instant.now().truncatedTo(ChronoUnit.SECONDS).toString());

@@ -4,7 +4,7 @@ import java.io.PrintWriter;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.concurrent.CountDownLatch;
-import org.precedent.api.system.ModelHolder;
+import org.precedent.api.system.InForceHolder;
 import org.precedent.api.system.PrecedentServer;
 import org.precedent.api.system.ServiceStartException;
 import org.precedent.engine.rerank.store.ModelStore;
@@ -79,7 +79,7 @@ final class ServeCommand implements Callable<Integer> {
         closed.countDown();
       }
     });
-    String version = context.getBean(ModelHolder.class).version();
+    String version = context.getBean(InForceHolder.class).version();
     out.printf("Precedent is serving model %s from %s at %s%n", version,
         data.toAbsolutePath(), PrecedentServer.url(context));
     out.println("Stop it with Ctrl-C.");

@@ -11,7 +11,7 @@ import java.util.Map;
 import java.util.concurrent.Callable;
 import org.precedent.api.triage.TriageRun;
 import org.precedent.api.triage.TriageTicket;
-import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.InForce;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.ExportRows;
 import org.precedent.knowledge.ingest.IngestException;
@@ -67,8 +67,8 @@ final class TriageCommand implements Callable<Integer> {
       return PrecedentCommand.FAILED;
     }
     NumericLibrary.announce(err);
-    try (ActiveModel active = ActiveModel.open(new DataDir(parent.dataDir()))) {
-      TriageRun.Result r = new TriageRun(active.advisor(), active.version(), commitEvery)
+    try (InForce active = InForce.open(new DataDir(parent.dataDir()))) {
+      TriageRun.Result r = new TriageRun(active.pipeline(), active.version(), commitEvery)
           .run(tickets, Files.size(in), output);
       if (r.resumedAt() > 0) {
         out.printf(Locale.ROOT, "resumed after %,d tickets already decided%n", r.resumedAt());

@@ -9,7 +9,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.precedent.api.system.AuditColumns;
-import org.precedent.api.system.ModelHolder;
+import org.precedent.api.system.InForceHolder;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.jdbc.core.JdbcTemplate;
@@ -26,11 +26,11 @@ import org.springframework.web.server.ResponseStatusException;
  */
 @RestController
 class ModelsController {
-  private final ModelHolder models;
+  private final InForceHolder models;
   private final JdbcTemplate db;
   private final AuditColumns audit;
 
-  ModelsController(ModelHolder models, JdbcTemplate db, AuditColumns audit) {
+  ModelsController(InForceHolder models, JdbcTemplate db, AuditColumns audit) {
     this.models = models;
     this.db = db;
     this.audit = audit;

@@ -1,7 +1,7 @@
 package org.precedent.api.suggest;
 
 import java.util.List;
-import org.precedent.engine.decide.ScoredCandidate;
+import org.precedent.engine.fusion.ScoredCandidate;
 
 /**
  * One proposed answer.

@@ -1,8 +1,8 @@
 package org.precedent.api.suggest;
 
 import io.micrometer.core.instrument.MeterRegistry;
-import org.precedent.api.system.AdvisorLease;
-import org.precedent.api.system.ModelHolder;
+import org.precedent.api.system.PipelineLease;
+import org.precedent.api.system.InForceHolder;
 import org.precedent.engine.decide.Decision;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -12,10 +12,10 @@ import org.springframework.stereotype.Component;
 @Component
 public class Decider {
   private static final Logger LOG = LoggerFactory.getLogger(Decider.class);
-  private final ModelHolder models;
+  private final InForceHolder models;
   private final MeterRegistry meters;
 
-  Decider(ModelHolder models, MeterRegistry meters) {
+  Decider(InForceHolder models, MeterRegistry meters) {
     this.models = models;
     this.meters = meters;
   }
@@ -25,8 +25,8 @@ public class Decider {
    * @param limit  how many candidates the view keeps
    */
   public DecisionView decide(String question, String category, int limit, String source) {
-    try (AdvisorLease lease = models.lease()) {
-      Decision d = lease.advisor().decide(question, category);
+    try (PipelineLease lease = models.lease()) {
+      Decision d = lease.pipeline().decide(question, category);
       meters.counter("precedent.decisions", "source", source, "outcome", d.outcome().name())
           .increment();
       return DecisionView.of(d, lease.version(), limit);

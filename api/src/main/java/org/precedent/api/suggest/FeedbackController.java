@@ -6,7 +6,7 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.Map;
 import org.precedent.api.system.FieldProblem;
-import org.precedent.api.system.ModelHolder;
+import org.precedent.api.system.InForceHolder;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
@@ -21,10 +21,10 @@ import org.springframework.web.bind.annotation.RestController;
 @RestController
 class FeedbackController {
   private final JdbcTemplate db;
-  private final ModelHolder models;
+  private final InForceHolder models;
   private final TextCleaner cleaner = TextCleaner.standard();
 
-  FeedbackController(JdbcTemplate db, ModelHolder models) {
+  FeedbackController(JdbcTemplate db, InForceHolder models) {
     this.db = db;
     this.models = models;
   }

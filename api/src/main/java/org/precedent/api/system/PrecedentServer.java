@@ -77,7 +77,7 @@ public class PrecedentServer {
   }
 
   @Bean(destroyMethod = "close")
-  ModelHolder modelHolder(@Value("${precedent.data}") Path data) throws IOException {
-    return new ModelHolder(new DataDir(data));
+  InForceHolder modelHolder(@Value("${precedent.data}") Path data) throws IOException {
+    return new InForceHolder(new DataDir(data));
   }
 }

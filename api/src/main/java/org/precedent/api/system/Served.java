@@ -1,6 +1,6 @@
 package org.precedent.api.system;
 
-import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.decide.Pipeline;
 
-/** What the service decides with right now: an opened model and the advisor over it. */
-record Served(LoadedModel loaded, Advisor advisor) {}
+/** What the service decides with right now: an opened model and the pipeline over it. */
+record Served(SharedInForce loaded, Pipeline pipeline) {}

@@ -14,7 +14,7 @@ import java.util.TreeMap;
 import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.FieldProblem;
 import org.precedent.api.system.Limits;
-import org.precedent.api.system.ModelHolder;
+import org.precedent.api.system.InForceHolder;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.ReportFiles;
@@ -31,11 +31,11 @@ import org.springframework.web.server.ResponseStatusException;
 /** The reply threshold: read it, change it (audited), and read the evaluation to choose it by. */
 @RestController
 class ThresholdController {
-  private final ModelHolder models;
+  private final InForceHolder models;
   private final JdbcTemplate db;
   private final AuditColumns audit;
 
-  ThresholdController(ModelHolder models, JdbcTemplate db, AuditColumns audit) {
+  ThresholdController(InForceHolder models, JdbcTemplate db, AuditColumns audit) {
     this.models = models;
     this.db = db;
     this.audit = audit;
@@ -113,7 +113,7 @@ class ThresholdController {
   /** The latest evaluation report ({@code precedent evaluate}), to choose a threshold by. */
   @GetMapping("/api/v1/threshold/evaluation")
   EvaluationReport evaluation() throws IOException {
-    Path latest = models.dataDir().root().resolve("reports").resolve("latest.json");
+    Path latest = models.dataDir().latestReport();
     if (!Files.isRegularFile(latest)) {
       throw new ResponseStatusException(HttpStatus.NOT_FOUND,
           "no evaluation yet: run 'precedent evaluate' on held-out tickets first");

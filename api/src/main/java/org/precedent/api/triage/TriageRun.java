@@ -11,7 +11,7 @@ import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.util.List;
 import java.util.Optional;
-import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.decide.Pipeline;
 import org.precedent.engine.decide.Decision;
 
 /**
@@ -24,18 +24,18 @@ public final class TriageRun {
   private static final ObjectMapper JSON = new ObjectMapper()
       .setSerializationInclusion(JsonInclude.Include.NON_NULL);
 
-  private final Advisor advisor;
+  private final Pipeline pipeline;
   private final String version;
   private final int commitEvery;
 
   /** What a run did. */
   public record Result(long resumedAt, long decided, long replies, long handOffs, long errors) {}
 
-  public TriageRun(Advisor advisor, String version, int commitEvery) {
+  public TriageRun(Pipeline pipeline, String version, int commitEvery) {
     if (commitEvery < 1) {
       throw new IllegalArgumentException("commit interval must be at least 1, got " + commitEvery);
     }
-    this.advisor = advisor;
+    this.pipeline = pipeline;
     this.version = version;
     this.commitEvery = commitEvery;
   }
@@ -76,7 +76,7 @@ public final class TriageRun {
           line = TriageLine.failed(t, t.error());
           errors++;
         } else {
-          Decision d = advisor.decide(t.question(), t.category());
+          Decision d = pipeline.decide(t.question(), t.category());
           line = TriageLine.of(t, d, version);
           if (line.outcome().equals("REPLY")) {
             replies++;

@@ -12,7 +12,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.precedent.api.testing.TrainedData;
-import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.store.DataDir;
@@ -29,12 +29,12 @@ class AskOutputTest {
     Path data = TrainedData.copy();
     DataDir dir = new DataDir(data);
     double confidence;
-    try (ActiveModel active = ActiveModel.open(dir)) {
-      confidence = active.advisor().decide(QUESTION, null).confidence();
+    try (InForce active = InForce.open(dir)) {
+      confidence = active.pipeline().decide(QUESTION, null).confidence();
     }
     // The shortest decimal a hair above the confidence: two decimals would print both as one.
     double threshold = ThresholdDecimals.shortestAbove(confidence, confidence + 0.0005);
-    ActiveModel.writeThresholds(dir, Thresholds.global(threshold));
+    InForce.writeThresholds(dir, Thresholds.global(threshold));
 
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();

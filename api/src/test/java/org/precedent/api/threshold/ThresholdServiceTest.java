@@ -20,7 +20,7 @@ import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.RunningService;
 import org.precedent.api.testing.ServiceForClass;
 import org.precedent.api.testing.TrainedData;
-import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.InForce;
 import org.precedent.knowledge.store.DataDir;
 
 /** Threshold changes: applied to the next decision, written to the data directory, audited. */
@@ -105,7 +105,7 @@ class ThresholdServiceTest {
         "reason", "categories as the help desk names them"), Caller.MANAGER);
     assertEquals(200, r.status(), r.raw().body());
     assertEquals(perCategory, perCategory(http()));
-    assertEquals(perCategory, ActiveModel.readThresholds(new DataDir(service.data()))
+    assertEquals(perCategory, InForce.readThresholds(new DataDir(service.data()))
         .perCategory());
     JsonNode d = http().post("/api/v1/decisions", Map.of("question", "bin not emptied",
         "category", "a\\u12"), Caller.AGENT).json();

@@ -1,6 +1,7 @@
 package org.precedent.engine.decide;
 
 import java.util.List;
+import org.precedent.engine.fusion.ScoredCandidate;
 import org.precedent.engine.safety.SafetyFinding;
 
 /**

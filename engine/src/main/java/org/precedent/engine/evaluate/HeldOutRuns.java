@@ -4,16 +4,12 @@ import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
-import org.precedent.engine.decide.CandidateScoring;
-import org.precedent.engine.decide.Ranked;
-import org.precedent.engine.decide.Ranker;
-import org.precedent.engine.decide.SafetyGate;
-import org.precedent.engine.decide.ScoredCandidate;
-import org.precedent.engine.decide.ScoringSystem;
-import org.precedent.engine.rerank.Scorer;
-import org.precedent.engine.safety.SafetyPolicy;
+import org.precedent.engine.candidates.CandidateScoring;
+import org.precedent.engine.decide.Pipeline;
+import org.precedent.engine.fusion.Ranked;
+import org.precedent.engine.fusion.ScoredCandidate;
+import org.precedent.engine.fusion.ScoringSystem;
 import org.precedent.knowledge.io.Progress;
-import org.precedent.knowledge.retrieve.Retriever;
 
 /**
  * Runs the three scoring systems over held-out questions, sharing one retrieval and one reranker
@@ -31,18 +27,23 @@ public final class HeldOutRuns {
   public record HeldOutQuestion(String ticketId, String question, String category,
       String rightGroup) {}
 
-  /** The model alone: no safety gate in front of any ticket. */
-  public static List<SystemRun> run(Retriever retriever, Scorer scorer, Ranker ranker,
-      List<HeldOutQuestion> questions, Progress progress) {
-    return run(retriever, scorer, ranker, null, questions, progress);
+  /** The model alone: no gate in front of any ticket. */
+  public static List<SystemRun> modelAlone(Pipeline pipeline, List<HeldOutQuestion> questions,
+      Progress progress) {
+    return run(pipeline, false, questions, progress);
   }
 
   /**
-   * @param safety the policy whose gate the service puts before the threshold, so that each ticket
-   *               records whether it would be handed off whatever the confidence; null for none
+   * As the service would decide: each ticket also records whether the gate before the threshold
+   * (safety rules, people-only answers, incomplete answers) hands it off whatever the confidence.
    */
-  public static List<SystemRun> run(Retriever retriever, Scorer scorer, Ranker ranker,
-      SafetyPolicy safety, List<HeldOutQuestion> questions, Progress progress) {
+  public static List<SystemRun> asServed(Pipeline pipeline, List<HeldOutQuestion> questions,
+      Progress progress) {
+    return run(pipeline, true, questions, progress);
+  }
+
+  private static List<SystemRun> run(Pipeline pipeline, boolean gate,
+      List<HeldOutQuestion> questions, Progress progress) {
     Map<ScoringSystem, List<EvaluatedTicket>> bySystem = new EnumMap<>(ScoringSystem.class);
     for (ScoringSystem s : ScoringSystem.values()) {
       bySystem.put(s, new ArrayList<>());
@@ -50,11 +51,11 @@ public final class HeldOutRuns {
     progress.total(questions.size());
     int done = 0;
     for (HeldOutQuestion q : questions) {
-      CandidateScoring scoring = CandidateScoring.of(retriever, scorer, q.question(), null);
+      CandidateScoring scoring = pipeline.candidates(q.question(), null);
       for (ScoringSystem s : ScoringSystem.values()) {
-        Ranked ranked = ranker.rank(s, scoring.candidates(), scoring.scores());
+        Ranked ranked = pipeline.rank(s, scoring);
         // Each system would send its own best answer, which the gate looks at too.
-        boolean gated = safety != null && SafetyGate.handsOff(safety, q.question(), q.category(),
+        boolean gated = gate && pipeline.gated(q.question(), q.category(),
             ranked.candidates().isEmpty() ? null
                 : ranked.candidates().get(0).candidate().group());
         bySystem.get(s).add(new EvaluatedTicket(q.ticketId(),

@@ -8,7 +8,7 @@ import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.Locale;
 import java.util.Map;
-import org.precedent.engine.decide.ScoringSystem;
+import org.precedent.engine.fusion.ScoringSystem;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.Measures;
 import org.precedent.engine.evaluate.SystemReport;

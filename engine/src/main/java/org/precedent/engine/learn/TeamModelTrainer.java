@@ -5,6 +5,9 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import org.precedent.engine.decide.Assembly;
+import org.precedent.engine.fusion.FusionFit;
+import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.TrainedReranker;
@@ -92,7 +95,8 @@ public final class TeamModelTrainer {
     Path work = dataDir.models().resolve("training");
     RerankerTrainer trainer = new RerankerTrainer(config, work);
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
-    FusionFit fit = FusionFit.fit(knowledge.retriever(), new Scorer(trained.model()), fusion);
+    FusionFit fit = FusionFit.fit(Assembly.candidates(knowledge, new Scorer(trained.model())),
+        fusion);
     // The fusion model is written with the version, so that its manifest covers it too.
     ModelStore store = new ModelStore(dataDir.models());
     String version = store.write(trained, fit::save);

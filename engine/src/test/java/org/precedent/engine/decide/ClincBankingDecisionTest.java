@@ -16,7 +16,7 @@ import org.precedent.engine.evaluate.EvaluationReports;
 import org.precedent.engine.evaluate.HeldOutRuns;
 import org.precedent.engine.evaluate.SystemReport;
 import org.precedent.engine.evaluate.SystemRun;
-import org.precedent.engine.learn.FusionQuestion;
+import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.rerank.RerankerConfig;
@@ -82,9 +82,9 @@ class ClincBankingDecisionTest {
           false);
       System.out.println(trained.summary());
     }
-    try (ActiveModel active = ActiveModel.open(data)) {
-      List<SystemRun> runs = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
-          new Ranker(active.fusion()), test, Progress.silent());
+    try (InForce active = InForce.open(data)) {
+      List<SystemRun> runs = HeldOutRuns.modelAlone(active.pipeline(), test,
+          Progress.silent());
       EvaluationReport report = EvaluationReports.build("CLINC150 banking test", runs, 0.95);
       for (SystemReport s : report.systems()) {
         var m = s.measures();

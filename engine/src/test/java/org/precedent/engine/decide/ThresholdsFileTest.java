@@ -36,8 +36,8 @@ class ThresholdsFileTest {
       v += 0.01;
     }
     Thresholds written = new Thresholds(0.8125, perCategory);
-    ActiveModel.writeThresholds(dir, written);
-    Thresholds read = ActiveModel.readThresholds(dir);
+    InForce.writeThresholds(dir, written);
+    Thresholds read = InForce.readThresholds(dir);
     assertEquals(written.global(), read.global(), 1e-12);
     assertEquals(written.perCategory().keySet(), read.perCategory().keySet());
     written.perCategory().forEach((name, value) ->
@@ -64,7 +64,7 @@ class ThresholdsFileTest {
     // What an earlier release wrote for the category a-backslash-u-1-2: a broken escape.
     Files.writeString(file, "# Confidence needed for an automatic reply.\nglobal=0.9000\n"
         + "category.a\\u12=0.5000\n");
-    IOException e = assertThrows(IOException.class, () -> ActiveModel.readThresholds(dir));
+    IOException e = assertThrows(IOException.class, () -> InForce.readThresholds(dir));
     assertTrue(e.getMessage().contains(file.toString()), e.getMessage());
     assertTrue(e.getMessage().contains("line 3"), e.getMessage());
     assertTrue(e.getMessage().contains("\\uxxxx"), e.getMessage());
@@ -75,7 +75,7 @@ class ThresholdsFileTest {
     DataDir dir = new DataDir(tmp);
     Path file = tmp.resolve("thresholds.properties");
     Files.writeString(file, "global=0.9\ncategory.bins=high\n");
-    IOException e = assertThrows(IOException.class, () -> ActiveModel.readThresholds(dir));
+    IOException e = assertThrows(IOException.class, () -> InForce.readThresholds(dir));
     assertTrue(e.getMessage().contains(file.toString()), e.getMessage());
     assertTrue(e.getMessage().contains("category.bins"), e.getMessage());
     assertTrue(e.getMessage().contains("'high'"), e.getMessage());

@@ -12,7 +12,7 @@ import java.util.Map;
 import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.precedent.engine.decide.ScoringSystem;
+import org.precedent.engine.fusion.ScoringSystem;
 import org.precedent.engine.evaluate.EvaluatedTicket;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.EvaluationReports;

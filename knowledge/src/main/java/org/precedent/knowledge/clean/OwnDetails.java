@@ -27,8 +27,6 @@ import java.util.Set;
 public record OwnDetails(Set<String> phones, Set<String> emails) {
   /** No details kept: everything that looks like a contact detail is redacted. */
   public static final OwnDetails NONE = new OwnDetails(Set.of(), Set.of());
-  /** The file name in a data directory. */
-  public static final String FILE = "own-details.txt";
   private static final int MAX_LINE = 320;
 
   public OwnDetails {

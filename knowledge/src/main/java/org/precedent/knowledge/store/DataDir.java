@@ -21,7 +21,10 @@ import java.util.stream.Stream;
  * <p>Knowledge (tickets, answer groups, the index) lives in numbered generations,
  * {@code knowledge/gen-000001}, ...; the file {@code knowledge/CURRENT} names the one in force. A
  * change builds a complete new generation, then replaces CURRENT atomically, so a crash at any
- * moment leaves the previous generation serving. Later modules keep models under {@code models/}.
+ * moment leaves the previous generation serving. Model versions live under {@code models/}; beside
+ * them the team's settings ({@code own-details.txt}, {@code safety.rules},
+ * {@code thresholds.properties}), evaluation reports ({@code reports/}) and the service's own files.
+ * Every name in the directory is given here, so that no other class knows the layout.
  *
  * <p>The directory holds customers' questions and the audit, so it is kept private to its owner:
  * it is made so when a change or the service opens it, and new files are made so as they are
@@ -51,6 +54,26 @@ public final class DataDir {
 
   public Path models() {
     return root.resolve("models");
+  }
+
+  /** The team's safety rules; without the file the built-in rules apply. */
+  public Path safetyRules() {
+    return root.resolve("safety.rules");
+  }
+
+  /** The thresholds in force; without the file the default threshold applies. */
+  public Path thresholds() {
+    return root.resolve("thresholds.properties");
+  }
+
+  /** Evaluation reports, each stamped with its time, and {@link #latestReport()}. */
+  public Path reports() {
+    return root.resolve("reports");
+  }
+
+  /** The last evaluation's JSON report, which the manager's page reads. */
+  public Path latestReport() {
+    return reports().resolve("latest.json");
   }
 
   /** The generation in force, if any knowledge was ever stored. */

@@ -3,22 +3,22 @@ package org.precedent.api.system;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.util.concurrent.atomic.AtomicInteger;
-import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.InForce;
 
 /**
  * An opened model version with a count of its users. The holder that serves it counts as one user;
  * each request in flight counts as one more. The files are closed when the last user lets go, so a
  * swap never pulls the knowledge out from under a request that is still deciding.
  */
-final class LoadedModel {
-  private final ActiveModel model;
+final class SharedInForce {
+  private final InForce model;
   private final AtomicInteger users = new AtomicInteger(1);
 
-  LoadedModel(ActiveModel model) {
+  SharedInForce(InForce model) {
     this.model = model;
   }
 
-  ActiveModel model() {
+  InForce model() {
     return model;
   }
 

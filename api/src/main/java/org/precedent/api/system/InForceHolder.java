@@ -4,7 +4,7 @@ import java.io.IOException;
 import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.atomic.AtomicReference;
-import org.precedent.engine.decide.ActiveModel;
+import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.engine.rerank.store.ModelStore;
@@ -12,21 +12,21 @@ import org.precedent.knowledge.store.DataDir;
 
 /**
  * Holds the model the service decides with and swaps it atomically. A request takes a lease on what
- * is in force and finishes on it; a swap installs the new advisor for later requests and lets the old
+ * is in force and finishes on it; a swap installs the new pipeline for later requests and lets the old
  * model close once its last lease is returned. Swaps are serialised with each other.
  */
-public final class ModelHolder implements AutoCloseable {
+public final class InForceHolder implements AutoCloseable {
   private final DataDir dataDir;
   private final AtomicReference<Served> current = new AtomicReference<>();
   private final Object swapLock = new Object();
   // The model reads the thresholds once when opened; later changes live here and in the file.
   private final AtomicReference<Thresholds> thresholdsInForce = new AtomicReference<>();
 
-  public ModelHolder(DataDir dataDir) throws IOException {
+  public InForceHolder(DataDir dataDir) throws IOException {
     this.dataDir = dataDir;
-    ActiveModel model;
+    InForce model;
     try {
-      model = ActiveModel.open(dataDir);
+      model = InForce.open(dataDir);
     } catch (ModelLoadException e) {
       // Refused rather than served in part: a damaged or edited version decides nothing.
       throw new ModelLoadException("the model version in force ("
@@ -34,7 +34,7 @@ public final class ModelHolder implements AutoCloseable {
           + dataDir.models().resolve(ModelStore.ACTIVE) + ") cannot be used: " + e.getMessage()
           + ". Train a new version ('precedent train'), or name a sound one in that file", e);
     }
-    current.set(new Served(new LoadedModel(model), model.advisor()));
+    current.set(new Served(new SharedInForce(model), model.pipeline()));
     thresholdsInForce.set(model.thresholds());
   }
 
@@ -42,15 +42,15 @@ public final class ModelHolder implements AutoCloseable {
     return dataDir;
   }
 
-  /** A lease on the advisor in force; close it when the request is done. */
-  public AdvisorLease lease() {
+  /** A lease on the pipeline in force; close it when the request is done. */
+  public PipelineLease lease() {
     while (true) {
       Served s = current.get();
       if (s == null) {
         throw new IllegalStateException("the service is shutting down");
       }
       if (s.loaded().tryRetain()) {
-        return new AdvisorLease(s);
+        return new PipelineLease(s);
       }
       // That model closed between reading and retaining: the swap already installed a newer one.
     }
@@ -71,16 +71,16 @@ public final class ModelHolder implements AutoCloseable {
   public Thresholds changeThresholds(Thresholds next, ThresholdsChange after) throws IOException {
     synchronized (swapLock) {
       Thresholds old = thresholdsInForce.get();
-      ActiveModel.writeThresholds(dataDir, next);
+      InForce.writeThresholds(dataDir, next);
       try {
         after.record(old, next);
       } catch (RuntimeException | IOException e) {
-        ActiveModel.writeThresholds(dataDir, old);
+        InForce.writeThresholds(dataDir, old);
         throw e;
       }
       Served s = current.get();
-      // Same model, new advisor: the model's use count carries over unchanged.
-      current.set(new Served(s.loaded(), s.advisor().withThresholds(next)));
+      // Same model, new pipeline: the model's use count carries over unchanged.
+      current.set(new Served(s.loaded(), s.pipeline().withThresholds(next)));
       thresholdsInForce.set(next);
       return old;
     }
@@ -111,15 +111,15 @@ public final class ModelHolder implements AutoCloseable {
       ModelStore store = store();
       String before = version();
       store.activate(version);
-      ActiveModel opened;
+      InForce opened;
       try {
-        opened = ActiveModel.open(dataDir);
+        opened = InForce.open(dataDir);
       } catch (IOException | RuntimeException e) {
         store.activate(before);
         throw e;
       }
-      Served old = current.getAndSet(new Served(new LoadedModel(opened),
-          opened.advisor().withThresholds(thresholdsInForce.get())));
+      Served old = current.getAndSet(new Served(new SharedInForce(opened),
+          opened.pipeline().withThresholds(thresholdsInForce.get())));
       old.loaded().release();
       return before;
     }

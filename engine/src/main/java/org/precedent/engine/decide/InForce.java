@@ -4,6 +4,7 @@ import java.io.Closeable;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import org.precedent.engine.fusion.FusionModel;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.store.ModelStore;
@@ -12,15 +13,14 @@ import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
 /**
- * Everything in force in a data directory: the stored knowledge, the active model version (reranker
- * and fusion), the safety policy ({@code DIR/safety.rules}, else the built-in rules) and the
- * thresholds ({@code DIR/thresholds.properties}, else {@link #DEFAULT_THRESHOLD}).
+ * Everything in force in a data directory, opened: the stored knowledge, the active model version
+ * (reranker and fusion), the safety policy ({@code DIR/safety.rules}, else the built-in rules), the
+ * thresholds ({@code DIR/thresholds.properties}, else {@link #DEFAULT_THRESHOLD}), and the
+ * {@link Pipeline} that decides with them. Closing it closes the knowledge.
  */
-public final class ActiveModel implements Closeable {
+public final class InForce implements Closeable {
   /** Until a manager sets one from an evaluation, reply only when very sure (common practice). */
   public static final double DEFAULT_THRESHOLD = 0.95;
-  static final String THRESHOLDS = "thresholds.properties";
-  static final String SAFETY = "safety.rules";
 
   private final Knowledge knowledge;
   private final String version;
@@ -29,7 +29,7 @@ public final class ActiveModel implements Closeable {
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
 
-  private ActiveModel(Knowledge knowledge, String version, Scorer scorer, FusionModel fusion,
+  private InForce(Knowledge knowledge, String version, Scorer scorer, FusionModel fusion,
       SafetyPolicy safety, Thresholds thresholds) {
     this.knowledge = knowledge;
     this.version = version;
@@ -40,7 +40,7 @@ public final class ActiveModel implements Closeable {
   }
 
   /** Opens what is in force; a clear IOException says what is missing. */
-  public static ActiveModel open(DataDir dir) throws IOException {
+  public static InForce open(DataDir dir) throws IOException {
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
     try {
@@ -49,9 +49,9 @@ public final class ActiveModel implements Closeable {
           "no trained model in " + dir.root() + " yet: run 'precedent train' first"));
       RerankerModel model = store.load(version);
       FusionModel fusion = FusionModel.load(store.directory(version));
-      Path rules = dir.root().resolve(SAFETY);
+      Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
-      return new ActiveModel(knowledge, version, new Scorer(model), fusion, safety,
+      return new InForce(knowledge, version, new Scorer(model), fusion, safety,
           readThresholds(dir));
     } catch (IOException | RuntimeException e) {
       knowledge.close();
@@ -59,8 +59,9 @@ public final class ActiveModel implements Closeable {
     }
   }
 
-  public Advisor advisor() {
-    return new Advisor(knowledge.retriever(), scorer, fusion, safety, thresholds);
+  /** The pipeline that decides with what is in force. */
+  public Pipeline pipeline() {
+    return Assembly.pipeline(knowledge, scorer, fusion, safety, thresholds);
   }
 
   public Knowledge knowledge() {
@@ -89,12 +90,12 @@ public final class ActiveModel implements Closeable {
 
   /** The thresholds in force in {@code dir}; an IOException names the file and line when bad. */
   public static Thresholds readThresholds(DataDir dir) throws IOException {
-    return ThresholdsFile.read(dir.root().resolve(THRESHOLDS), DEFAULT_THRESHOLD);
+    return ThresholdsFile.read(dir.thresholds(), DEFAULT_THRESHOLD);
   }
 
   /** Sets the thresholds in force for later runs (written atomically). */
   public static void writeThresholds(DataDir dir, Thresholds thresholds) throws IOException {
-    ThresholdsFile.write(dir.root().resolve(THRESHOLDS), thresholds);
+    ThresholdsFile.write(dir.thresholds(), thresholds);
   }
 
   @Override

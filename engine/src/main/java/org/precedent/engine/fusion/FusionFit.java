@@ -1,4 +1,4 @@
-package org.precedent.engine.learn;
+package org.precedent.engine.fusion;
 
 import java.io.IOException;
 import java.nio.file.Path;
@@ -8,13 +8,9 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
-import org.precedent.engine.decide.CandidateScoring;
-import org.precedent.engine.decide.FusionModel;
-import org.precedent.engine.decide.ScoringSystem;
-import org.precedent.engine.decide.SystemModel;
-import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.candidates.CandidateScoring;
+import org.precedent.engine.candidates.CandidateStages;
 import org.precedent.knowledge.io.Progress;
-import org.precedent.knowledge.retrieve.Retriever;
 
 /**
  * Fits fusion and calibration on questions kept apart from reranker training: each is asked as a
@@ -32,13 +28,13 @@ public final class FusionFit {
     this.model = model;
   }
 
-  public static FusionFit fit(Retriever retriever, Scorer scorer, List<FusionQuestion> fusionQuestions) {
+  /** @param candidates the stages before fusion, as the pipeline will run them */
+  public static FusionFit fit(CandidateStages candidates, List<FusionQuestion> fusionQuestions) {
     List<LabelledQuestion> questions = new ArrayList<>();
     Progress progress = new Progress("scoring the fusion split", "tickets", System.err)
         .total(fusionQuestions.size());
     for (FusionQuestion q : fusionQuestions) {
-      CandidateScoring scoring = CandidateScoring.of(retriever, scorer, q.question(),
-          q.stored() ? q.ticketId() : null);
+      CandidateScoring scoring = candidates.score(q.question(), q.stored() ? q.ticketId() : null);
       questions.add(new LabelledQuestion(q.ticketId(), q.rightGroup(), scoring));
       progress.update(questions.size());
     }

@@ -1,4 +1,4 @@
-package org.precedent.engine.learn;
+package org.precedent.engine.fusion;
 
 /**
  * A question that fusion and calibration are fitted on.

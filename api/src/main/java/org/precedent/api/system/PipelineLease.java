@@ -1,21 +1,21 @@
 package org.precedent.api.system;
 
-import org.precedent.engine.decide.Advisor;
+import org.precedent.engine.decide.Pipeline;
 
 /**
- * The advisor in force when a request started, kept usable until the request closes the lease,
+ * The pipeline in force when a request started, kept usable until the request closes the lease,
  * whatever swaps happen meanwhile.
  */
-public final class AdvisorLease implements AutoCloseable {
+public final class PipelineLease implements AutoCloseable {
   private final Served served;
   private boolean closed;
 
-  AdvisorLease(Served served) {
+  PipelineLease(Served served) {
     this.served = served;
   }
 
-  public Advisor advisor() {
-    return served.advisor();
+  public Pipeline pipeline() {
+    return served.pipeline();
   }
 
   public String version() {

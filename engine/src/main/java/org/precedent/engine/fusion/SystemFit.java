@@ -1,18 +1,18 @@
-package org.precedent.engine.learn;
+package org.precedent.engine.fusion;
 
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.precedent.engine.decide.Ranker;
-import org.precedent.engine.decide.ScoringSystem;
-import org.precedent.engine.decide.SystemModel;
+import org.precedent.engine.fusion.Ranker;
+import org.precedent.engine.fusion.ScoringSystem;
+import org.precedent.engine.fusion.SystemModel;
 import org.precedent.engine.stats.CrossFit;
 import org.precedent.engine.stats.LogisticModel;
 import org.precedent.engine.stats.LogisticRegression;
 import org.precedent.engine.stats.PlattCalibrator;
 import org.precedent.engine.stats.PlattScaling;
-import org.precedent.engine.learn.FusionFit.LabelledQuestion;
+import org.precedent.engine.fusion.FusionFit.LabelledQuestion;
 import org.precedent.engine.measure.Calibration;
 import org.precedent.engine.measure.ScoredAnswer;
 

@@ -1,4 +1,4 @@
-package org.precedent.engine.decide;
+package org.precedent.engine.fusion;
 
 import java.util.List;
 

@@ -16,6 +16,9 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.precedent.engine.stats.LogisticModel;
 import org.precedent.engine.stats.PlattCalibrator;
+import org.precedent.engine.fusion.FusionModel;
+import org.precedent.engine.fusion.ScoringSystem;
+import org.precedent.engine.fusion.SystemModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.TinyModel;
 import org.precedent.engine.safety.SafetyPolicy;
@@ -34,7 +37,7 @@ import org.precedent.knowledge.store.Knowledge;
  * best candidate is known: only the BM25 inverse rank counts, with weight 2, and the Platt map is the
  * plain logistic function, so the top candidate's confidence is 1 / (1 + e^-2) = 0.881.
  */
-class AdvisorTest {
+class PipelineTest {
   @TempDir
   static Path tmp;
 
@@ -109,7 +112,7 @@ class AdvisorTest {
 
   private Decision decide(String question, String category, Thresholds thresholds,
       SafetyPolicy policy) {
-    return new Advisor(knowledge.retriever(), scorer, fusion, policy, thresholds)
+    return Assembly.pipeline(knowledge, scorer, fusion, policy, thresholds)
         .decide(question, category);
   }
 
@@ -207,7 +210,7 @@ class AdvisorTest {
 
   @Test
   void anAnswerLackingARedactedDetailIsHandedOffWhateverTheConfidence() {
-    Decision d = new Advisor(callBack.retriever(), scorer, fusion, SafetyPolicy.defaults(),
+    Decision d = Assembly.pipeline(callBack, scorer, fusion, SafetyPolicy.defaults(),
         Thresholds.global(0)).decide("no water at all today", null);
     assertEquals(Outcome.HAND_OFF, d.outcome());
     assertEquals(HandOffReason.ANSWER_INCOMPLETE, d.reason());
@@ -217,7 +220,7 @@ class AdvisorTest {
 
   @Test
   void theDesksDeclaredNumberStaysInTheAnswerSoItCanBeSent() {
-    Decision d = new Advisor(callBackDeclared.retriever(), scorer, fusion,
+    Decision d = Assembly.pipeline(callBackDeclared, scorer, fusion,
         SafetyPolicy.defaults(), Thresholds.global(0)).decide("no water at all today", null);
     assertEquals(Outcome.REPLY, d.outcome(), d.explanation());
     assertEquals("Please call our 24-hour line on 01632 960999.", d.reply());

@@ -4,38 +4,63 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import org.precedent.engine.measure.ThresholdDecimals;
-import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.candidates.CandidateScoring;
+import org.precedent.engine.candidates.CandidateStages;
+import org.precedent.engine.fusion.Ranked;
+import org.precedent.engine.fusion.Ranker;
+import org.precedent.engine.fusion.ScoredCandidate;
+import org.precedent.engine.fusion.ScoringSystem;
 import org.precedent.engine.safety.SafetyFinding;
 import org.precedent.engine.safety.SafetyPolicy;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
-import org.precedent.knowledge.retrieve.Retriever;
 
 /**
- * Decides, for one question, whether to reply automatically and with what: BM25 candidates, the
- * reranker's scores, the fused ranking and calibrated confidence, then the safety rules and the
- * threshold. Safety comes before confidence: a question under a safety rule is handed off however
- * sure the model is. Thread-safe.
+ * The stages of a decision, in order: candidates for the question ({@link CandidateStages}: a
+ * source, then a scorer), fusion into one ranking with a calibrated confidence ({@link Ranker}),
+ * the gate of safety rules and incomplete answers ({@link SafetyGate}), and the threshold.
+ * Safety comes before confidence: a question under a safety rule is handed off however sure the
+ * model is. Made by {@link Assembly} only. Thread-safe.
  */
-public final class Advisor {
-  private final Retriever retriever;
-  private final Scorer scorer;
+public final class Pipeline {
+  private final CandidateStages candidates;
   private final Ranker ranker;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
   private final TextCleaner cleaner = TextCleaner.standard();
 
-  public Advisor(Retriever retriever, Scorer scorer, FusionModel fusion, SafetyPolicy safety,
-      Thresholds thresholds) {
-    this.retriever = retriever;
-    this.scorer = scorer;
-    this.ranker = new Ranker(fusion);
+  Pipeline(CandidateStages candidates, Ranker ranker, SafetyPolicy safety, Thresholds thresholds) {
+    this.candidates = candidates;
+    this.ranker = ranker;
     this.safety = safety;
     this.thresholds = thresholds;
   }
 
-  public Advisor withThresholds(Thresholds newThresholds) {
-    return new Advisor(retriever, scorer, ranker.fusion(), safety, newThresholds);
+  /** The same stages deciding with other thresholds. */
+  public Pipeline withThresholds(Thresholds newThresholds) {
+    return new Pipeline(candidates, ranker, safety, newThresholds);
+  }
+
+  /** Candidates and their scores for a cleaned question (stages one and two). */
+  public CandidateScoring candidates(String question, String excludedTicket) {
+    return candidates.score(question, excludedTicket);
+  }
+
+  /** Candidates in one system's order with its confidence (fusion and calibration). */
+  public Ranked rank(ScoringSystem system, CandidateScoring scoring) {
+    return ranker.rank(system, scoring.candidates(), scoring.scores());
+  }
+
+  /**
+   * Whether the gate hands the question off whatever the confidence, when {@code best} is the
+   * answer that would be sent.
+   */
+  public boolean gated(String question, String category, AnswerGroup best) {
+    return SafetyGate.handsOff(safety, question, category, best);
+  }
+
+  public Thresholds thresholds() {
+    return thresholds;
   }
 
   /**
@@ -44,8 +69,8 @@ public final class Advisor {
    */
   public Decision decide(String rawQuestion, String category) {
     String question = cleaner.cleanQuestion(rawQuestion);
-    CandidateScoring scoring = CandidateScoring.of(retriever, scorer, question, null);
-    Ranked ranked = ranker.rank(ScoringSystem.FUSED, scoring.candidates(), scoring.scores());
+    CandidateScoring scoring = candidates(question, null);
+    Ranked ranked = rank(ScoringSystem.FUSED, scoring);
     boolean truncated = scoring.retrieval().truncated()
         || scoring.scores().stream().anyMatch(s -> s.questionTruncated());
     double threshold = thresholds.forCategory(category);

@@ -1,0 +1,31 @@
+package org.precedent.engine.decide;
+
+import org.precedent.engine.candidates.Bm25Candidates;
+import org.precedent.engine.candidates.CandidateStages;
+import org.precedent.engine.candidates.RerankerScores;
+import org.precedent.engine.fusion.FusionModel;
+import org.precedent.engine.fusion.Ranker;
+import org.precedent.engine.rerank.Scorer;
+import org.precedent.engine.safety.SafetyPolicy;
+import org.precedent.knowledge.store.Knowledge;
+
+/**
+ * The one place where the stages are put together: the service, {@code ask}, {@code triage},
+ * {@code evaluate}, the benchmarks and the fitting of fusion all decide through what is made here.
+ * A new candidate source or scorer is one class, and one line here.
+ */
+public final class Assembly {
+  private Assembly() {}
+
+  /** Stages one and two over stored knowledge and a reranker: what fusion is fitted on. */
+  public static CandidateStages candidates(Knowledge knowledge, Scorer reranker) {
+    return new CandidateStages(new Bm25Candidates(knowledge.retriever()),
+        new RerankerScores(reranker));
+  }
+
+  /** Every stage, with a fitted fusion model, a safety policy and the thresholds in force. */
+  public static Pipeline pipeline(Knowledge knowledge, Scorer reranker, FusionModel fusion,
+      SafetyPolicy safety, Thresholds thresholds) {
+    return new Pipeline(candidates(knowledge, reranker), new Ranker(fusion), safety, thresholds);
+  }
+}
