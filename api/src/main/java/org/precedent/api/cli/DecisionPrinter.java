@@ -1,10 +1,12 @@
 package org.precedent.api.cli;
 
 import java.io.PrintWriter;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import org.precedent.engine.decide.Decision;
 import org.precedent.engine.decide.Outcome;
+import org.precedent.engine.explain.Explanation;
 import org.precedent.engine.fusion.ScoredCandidate;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.retrieve.Evidence;
@@ -42,6 +44,7 @@ final class DecisionPrinter {
       }
     }
     out.println("   why: " + d.explanation());
+    out.println("   made of: " + parts(d.why()));
     List<ScoredCandidate> shown = d.candidates().subList(0, Math.min(candidates,
         d.candidates().size()));
     for (int i = 0; i < shown.size(); i++) {
@@ -58,5 +61,23 @@ final class DecisionPrinter {
     }
     out.println();
     out.flush();
+  }
+
+  /** The explanation's parts in one line, with the three largest terms of the logit. */
+  static String parts(Explanation why) {
+    List<String> parts = new ArrayList<>();
+    for (Explanation p : why.parts()) {
+      parts.add(p.value() == null ? p.name() + " " + p.detail()
+          : String.format(Locale.ROOT, "%s %.3f", p.name(), p.value()));
+    }
+    why.find("logit").ifPresent(logit -> {
+      List<String> terms = new ArrayList<>();
+      for (Explanation t : logit.parts().subList(0, Math.min(3, logit.parts().size()))) {
+        terms.add(String.format(Locale.ROOT, "%s %+.2f", t.name(), t.value()));
+      }
+      parts.add(String.format(Locale.ROOT, "logit %.2f, largest terms %s", logit.value(),
+          String.join(", ", terms)));
+    });
+    return String.join("; ", parts);
   }
 }

@@ -3,6 +3,7 @@ package org.precedent.api.suggest;
 import java.util.List;
 import java.util.Locale;
 import org.precedent.engine.decide.Decision;
+import org.precedent.engine.explain.Explanation;
 
 /**
  * A decision as the service shows it.
@@ -18,13 +19,15 @@ import org.precedent.engine.decide.Decision;
  * @param caution      what the customer should do now; present when a safety rule fired
  * @param safetyTopic  the safety rule's topic, when one fired
  * @param explanation  the decision in a sentence or two
+ * @param why          the same as a tree of named contributions (the confidence as the Platt
+ *                     calibration of a logit, the logit as its terms, the threshold, the gate)
  * @param truncated    the question was longer than the model reads and was cut
  * @param modelVersion the model version that decided
  * @param candidates   ranked answers, best first
  */
 public record DecisionView(String outcome, String reason, String question, String answerGroup,
     String reply, double confidence, double threshold, String caution, String safetyTopic,
-    String explanation, boolean truncated, String modelVersion, List<CandidateView> candidates) {
+    String explanation, Explanation why, boolean truncated, String modelVersion, List<CandidateView> candidates) {
 
   public static DecisionView of(Decision d, String modelVersion, int limit) {
     List<CandidateView> shown = new java.util.ArrayList<>();
@@ -34,7 +37,7 @@ public record DecisionView(String outcome, String reason, String question, Strin
     return new DecisionView(d.outcome().name(),
         d.reason() == null ? null : d.reason().name().toLowerCase(Locale.ROOT), d.question(),
         d.answerGroup(), d.reply(), d.confidence(), d.threshold(), d.caution(),
-        d.safety() == null ? null : d.safety().topic(), d.explanation(), d.truncated(),
+        d.safety() == null ? null : d.safety().topic(), d.explanation(), d.why(), d.truncated(),
         modelVersion, List.copyOf(shown));
   }
 }

@@ -66,6 +66,14 @@ class SuggestServiceTest {
     assertEquals("safety_rule", r.json().get("reason").asText());
     assertFalse(r.json().get("caution").asText().isBlank());
     assertTrue(r.json().get("reply") == null, "a hand-off carries no automatic reply");
+    // The explanation comes as a sentence and as the tree it is the root of.
+    var why = r.json().get("why");
+    assertEquals(r.json().get("explanation").asText(), why.get("detail").asText());
+    assertEquals("safety rule", why.get("parts").get(0).get("name").asText());
+    var confidence = why.get("parts").get(1);
+    assertEquals("confidence", confidence.get("name").asText());
+    assertEquals(r.json().get("confidence").asDouble(), confidence.get("value").asDouble(), 1e-12);
+    assertEquals("logit", confidence.get("parts").get(0).get("name").asText());
   }
 
   @Test

@@ -1,6 +1,7 @@
 package org.precedent.engine.decide;
 
 import java.util.List;
+import org.precedent.engine.explain.Explanation;
 import org.precedent.engine.fusion.ScoredCandidate;
 import org.precedent.engine.safety.SafetyFinding;
 
@@ -17,16 +18,22 @@ import org.precedent.engine.safety.SafetyFinding;
  * @param safety      the safety rule that fired, or null
  * @param caution     what the customer should do now, shown with a hand-off; null otherwise
  * @param candidates  candidates in fused order, with their scores and features
- * @param explanation the decision in one or two sentences
+ * @param why         why, as a tree of named contributions; its root's detail is the decision in
+ *                    one or two sentences ({@link #explanation()})
  * @param truncated   the question was longer than the models take and was cut
  */
 public record Decision(Outcome outcome, HandOffReason reason, String question, String answerGroup,
     String reply, double confidence, double threshold, SafetyFinding safety, String caution,
-    List<ScoredCandidate> candidates, String explanation, boolean truncated) {
+    List<ScoredCandidate> candidates, Explanation why, boolean truncated) {
   public Decision {
     candidates = List.copyOf(candidates);
     if ((outcome == Outcome.REPLY) != (reason == null)) {
       throw new IllegalArgumentException("a reply has no hand-off reason, a hand-off has one");
     }
+  }
+
+  /** The decision in one or two sentences: the root of {@link #why()}. */
+  public String explanation() {
+    return why.detail();
   }
 }

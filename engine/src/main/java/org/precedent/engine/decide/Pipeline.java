@@ -1,15 +1,17 @@
 package org.precedent.engine.decide;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
-import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.candidates.CandidateScoring;
+import org.precedent.engine.explain.Explanation;
 import org.precedent.engine.candidates.CandidateStages;
 import org.precedent.engine.fusion.Ranked;
 import org.precedent.engine.fusion.Ranker;
 import org.precedent.engine.fusion.ScoredCandidate;
 import org.precedent.engine.fusion.ScoringSystem;
+import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.safety.SafetyFinding;
 import org.precedent.engine.safety.SafetyPolicy;
 import org.precedent.knowledge.clean.TextCleaner;
@@ -78,41 +80,64 @@ public final class Pipeline {
     AnswerGroup best = candidates.isEmpty() ? null : candidates.get(0).candidate().group();
     double confidence = ranked.confidence();
 
-    Optional<SafetyFinding> finding = SafetyGate.check(safety, question, category, best);
+    List<Explanation> parts = new ArrayList<>();
+    parts.add(ranker.explain(ranked));
+    boolean ownThreshold = category != null && thresholds.perCategory().containsKey(category);
+    parts.add(Explanation.of("threshold", threshold, ownThreshold
+        ? "the threshold for category '" + category + "'" : "the threshold for every category"));
     String groupId = best == null ? null : best.id();
+    if (best != null) {
+      parts.add(Explanation.of("evidence", best.size(), "past tickets that answer " + groupId
+          + " resolved"));
+    }
+
+    Optional<SafetyFinding> finding = SafetyGate.check(safety, question, category, best);
     if (finding.isPresent()) {
       SafetyFinding f = finding.get();
       HandOffReason reason = f.kind() == SafetyFinding.Kind.TERM ? HandOffReason.SAFETY_RULE
           : HandOffReason.HUMAN_ONLY;
+      parts.add(0, Explanation.fact("safety rule", f.topics().isEmpty() ? f.matched()
+          : f.matched() + " (" + String.join(", ", f.topics()) + ")"));
       return new Decision(Outcome.HAND_OFF, reason, question, groupId, null, confidence,
-          threshold, f, f.caution(), candidates, explainSafety(f), truncated);
+          threshold, f, f.caution(), candidates, why(reason, confidence, explainSafety(f), parts),
+          truncated);
     }
     if (best == null) {
       return new Decision(Outcome.HAND_OFF, HandOffReason.NO_CANDIDATE, question, null, null, 0,
-          threshold, null, null, candidates,
-          "No past question shares a word with this one, so there is no answer to propose.",
-          truncated);
+          threshold, null, null, candidates, why(HandOffReason.NO_CANDIDATE, 0,
+              "No past question shares a word with this one, so there is no answer to propose.",
+              parts), truncated);
     }
     List<String> missing = SafetyGate.missingDetails(best);
     if (!missing.isEmpty()) {
+      parts.add(0, Explanation.fact("missing details", String.join(", ", missing)));
       return new Decision(Outcome.HAND_OFF, HandOffReason.ANSWER_INCOMPLETE, question, groupId,
-          null, confidence, threshold, null, null, candidates, "The best answer (" + groupId
+          null, confidence, threshold, null, null, candidates, why(HandOffReason.ANSWER_INCOMPLETE,
+              confidence, "The best answer (" + groupId
               + ") lacks a detail that was redacted from the past replies ("
               + String.join(", ", missing) + "): a person should fill it in before it is sent.",
-          truncated);
+              parts), truncated);
     }
     if (confidence < threshold) {
       return new Decision(Outcome.HAND_OFF, HandOffReason.BELOW_THRESHOLD, question, groupId,
-          null, confidence, threshold, null, null, candidates, String.format(Locale.ROOT,
-              "The best answer (%s) has confidence %s, below the threshold %s: a person "
-                  + "should check it.", groupId, ThresholdDecimals.confidence(confidence, threshold),
-              ThresholdDecimals.of(threshold)), truncated);
+          null, confidence, threshold, null, null, candidates, why(HandOffReason.BELOW_THRESHOLD,
+              confidence, String.format(Locale.ROOT, "The best answer (%s) has confidence %s, "
+                  + "below the threshold %s: a person should check it.", groupId,
+                  ThresholdDecimals.confidence(confidence, threshold),
+                  ThresholdDecimals.of(threshold)), parts), truncated);
     }
     return new Decision(Outcome.REPLY, null, question, groupId, best.canonical(), confidence,
-        threshold, null, null, candidates, String.format(Locale.ROOT,
+        threshold, null, null, candidates, why(null, confidence, String.format(Locale.ROOT,
             "Answer %s has confidence %s, at or above the threshold %s; it resolved %d past "
                 + "tickets.", groupId, ThresholdDecimals.confidence(confidence, threshold),
-            ThresholdDecimals.of(threshold), best.size()), truncated);
+            ThresholdDecimals.of(threshold), best.size()), parts), truncated);
+  }
+
+  /** The decision's explanation: its sentence at the root, what it rests on below. */
+  private static Explanation why(HandOffReason reason, double confidence, String sentence,
+      List<Explanation> parts) {
+    return new Explanation(reason == null ? "reply" : "hand off: "
+        + reason.name().toLowerCase(Locale.ROOT).replace('_', ' '), confidence, sentence, parts);
   }
 
   private static String explainSafety(SafetyFinding f) {

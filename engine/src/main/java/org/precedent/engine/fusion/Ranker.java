@@ -4,7 +4,10 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
+import java.util.Locale;
+import org.precedent.engine.explain.Explanation;
 import org.precedent.engine.rerank.AnswerScore;
+import org.precedent.engine.stats.PlattCalibrator;
 import org.precedent.knowledge.retrieve.Candidate;
 
 /** Orders scored candidates by one system and gives its calibrated confidence. */
@@ -45,6 +48,34 @@ public final class Ranker {
     }
     double confidence = own.calibration().calibrate(ownLogit[order[0]]);
     return new Ranked(system, ordered, confidence);
+  }
+
+  /**
+   * Why the first candidate has the confidence it has: the Platt calibration of the system's logit,
+   * and the logit as the bias plus one term per feature (in standardised units, so that terms
+   * compare), largest effect first.
+   */
+  public Explanation explain(Ranked ranked) {
+    if (ranked.candidates().isEmpty()) {
+      return Explanation.of("confidence", 0, "no candidate, so nothing to be confident in");
+    }
+    SystemModel own = fusion.system(ranked.system());
+    double[] all = ranked.candidates().get(0).features().stream().mapToDouble(Double::doubleValue)
+        .toArray();
+    double[] x = Features.select(new double[][] {all}, own.features())[0];
+    double[] terms = own.model().terms(x);
+    List<Explanation> parts = new ArrayList<>();
+    parts.add(Explanation.of("bias", own.model().bias(), "log-odds at the average candidate"));
+    for (int j = 0; j < x.length; j++) {
+      parts.add(Explanation.of(own.features().get(j), terms[j],
+          String.format(Locale.ROOT, "%s = %.4g", own.features().get(j), x[j])));
+    }
+    Explanation logit = Explanation.sum("logit", ranked.system().label()
+        + " logit: the bias plus one term per feature", parts);
+    PlattCalibrator platt = own.calibration();
+    return new Explanation("confidence", ranked.confidence(), String.format(Locale.ROOT,
+        "Platt calibration of the logit: 1 / (1 + exp(%.3f * logit %+.3f))", platt.a(), platt.b()),
+        List.of(logit));
   }
 
   /**

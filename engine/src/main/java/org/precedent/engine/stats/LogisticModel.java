@@ -76,16 +76,28 @@ public record LogisticModel(
 
   /** Log-odds of a positive outcome for raw (unstandardised) features {@code x}. */
   public double logit(double[] x) {
+    double eta = bias;
+    for (double t : terms(x)) {
+      eta += t;
+    }
+    return eta;
+  }
+
+  /**
+   * Each feature's term in {@link #logit}: weights[j] * (x[j] - mean[j]) / std[j], so that the
+   * logit is the bias plus their sum. Terms in standardised units compare with each other.
+   */
+  public double[] terms(double[] x) {
     Checks.finite(x, "feature");
     if (x.length != weights.length) {
       throw new IllegalArgumentException(
           "expected " + weights.length + " features " + featureNames + "; got " + x.length);
     }
-    double eta = bias;
+    double[] terms = new double[x.length];
     for (int j = 0; j < x.length; j++) {
-      eta += weights[j] * (x[j] - mean[j]) / std[j];
+      terms[j] = weights[j] * (x[j] - mean[j]) / std[j];
     }
-    return eta;
+    return terms;
   }
 
   /** Probability of a positive outcome for raw features {@code x}. */

@@ -16,6 +16,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.precedent.engine.stats.LogisticModel;
 import org.precedent.engine.stats.PlattCalibrator;
+import org.precedent.engine.explain.Explanation;
 import org.precedent.engine.fusion.FusionModel;
 import org.precedent.engine.fusion.ScoringSystem;
 import org.precedent.engine.fusion.SystemModel;
@@ -224,5 +225,36 @@ class PipelineTest {
         SafetyPolicy.defaults(), Thresholds.global(0)).decide("no water at all today", null);
     assertEquals(Outcome.REPLY, d.outcome(), d.explanation());
     assertEquals("Please call our 24-hour line on 01632 960999.", d.reply());
+  }
+
+  @Test
+  void theExplanationIsATreeWhoseNumbersRecomputeTheConfidence() {
+    Decision d = decide("Hi, my bin was not emptied", null, Thresholds.global(0.8),
+        SafetyPolicy.defaults());
+    Explanation why = d.why();
+    assertEquals(d.explanation(), why.detail(), "the sentence is the tree's root");
+    assertEquals("reply", why.name());
+    Explanation confidence = why.find("confidence").orElseThrow();
+    Explanation logit = confidence.find("logit").orElseThrow();
+    // The test's fusion puts weight 2 on BM25's inverse rank (mean 0, sd 1) and nothing else, so
+    // the top candidate's logit is 2 and its largest term that feature's.
+    assertEquals(2.0, logit.value(), 1e-12);
+    assertEquals("bm25_inverse_rank", logit.parts().get(0).name());
+    assertEquals(logit.value(), logit.parts().stream().mapToDouble(Explanation::value).sum(),
+        1e-12);
+    // Platt (1999): P = 1 / (1 + exp(A f + B)), here A = -1, B = 0.
+    assertEquals(1 / (1 + Math.exp(-1 * logit.value() + 0)), confidence.value(), 1e-12);
+    assertEquals(d.confidence(), confidence.value(), 1e-12);
+    assertEquals(0.8, why.find("threshold").orElseThrow().value(), 0);
+  }
+
+  @Test
+  void aSafetyHandOffNamesItsRuleFirstInTheTree() {
+    Decision d = decide("the water from my tap is brown", null, Thresholds.global(0),
+        SafetyPolicy.defaults());
+    assertEquals("hand off: safety rule", d.why().name());
+    assertEquals("safety rule", d.why().parts().get(0).name());
+    assertTrue(d.why().parts().get(0).detail().contains("water-quality"),
+        d.why().parts().get(0).detail());
   }
 }
