@@ -2,7 +2,6 @@ package org.precedent.api.system;
 
 import java.io.IOException;
 import java.util.List;
-import java.util.Optional;
 import java.util.concurrent.atomic.AtomicReference;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
@@ -94,10 +93,6 @@ public final class InForceHolder implements AutoCloseable {
 
   public List<String> versions() throws IOException {
     return store().versions();
-  }
-
-  public Optional<String> storedActiveVersion() throws IOException {
-    return store().activeVersion();
   }
 
   /**

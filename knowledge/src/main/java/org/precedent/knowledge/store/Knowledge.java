@@ -14,7 +14,6 @@ import java.io.OutputStreamWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -124,10 +123,6 @@ public final class Knowledge implements Closeable {
   /** Tickets by id, in the order they were stored. */
   public Map<String, Ticket> tickets() {
     return tickets;
-  }
-
-  public List<Ticket> ticketList() {
-    return new ArrayList<>(tickets.values());
   }
 
   public Grouping grouping() {
