@@ -1,5 +1,7 @@
 package org.precedent.engine.rerank;
 
+import org.precedent.engine.rerank.net.NetworkSettings;
+
 /**
  * Sizes and training settings of one reranker. Kept as {@code config.properties} beside a saved model
  * and a training run's checkpoints, one line per component ({@link PropertiesRecords}).
@@ -93,6 +95,11 @@ public record RerankerConfig(int embedding, int hidden, int maxQuestionTokens, i
   public RerankerConfig withMaxTokens(int maxQuestionTokens, int maxAnswerTokens) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
         learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+  }
+
+  /** What the network is built from: its sizes, the weight seed, Adam's step and the clipping norm. */
+  public NetworkSettings network(int vocabularySize) {
+    return new NetworkSettings(embedding, hidden, vocabularySize, seed, learningRate, clipNorm);
   }
 
   private static void positive(String name, int value) {
