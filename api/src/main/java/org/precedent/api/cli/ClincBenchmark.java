@@ -102,22 +102,21 @@ final class ClincBenchmark implements Callable<Integer> {
     out.flush();
     NumericLibrary.announce(spec.commandLine().getErr());
     long start = System.nanoTime();
-    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
-      // Intent names are 2 to 4 words, learned better with a smaller step than the default.
-      TrainingReport report = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
-          .withEpochs(epochs, RerankerConfig.defaults().patience()).withLearningRate(2e-3))
-          .train(knowledge, pairs, validation, false);
-      out.println(report.summary());
-    }
+    Knowledge knowledge = Knowledge.open(dataDir).orElseThrow();
+    // Intent names are 2 to 4 words, learned better with a smaller step than the default.
+    TrainingReport report = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
+        .withEpochs(epochs, RerankerConfig.defaults().patience()).withLearningRate(2e-3))
+        .train(knowledge, pairs, validation, false);
+    out.println(report.summary());
     out.printf(Locale.ROOT, "trained in %.0f s%n", (System.nanoTime() - start) / 1e9);
     try (ActiveModel active = ActiveModel.open(dataDir)) {
       Ranker ranker = new Ranker(active.fusion());
       List<HeldOutRuns.HeldOutQuestion> val = validation.stream().map(v ->
           new HeldOutRuns.HeldOutQuestion(v.ticketId(), v.question(), "clinc", v.rightGroup()))
           .toList();
-      List<SystemRun> valRuns = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
+      List<SystemRun> valRuns = HeldOutRuns.run(active.retriever(), active.scorer(),
           ranker, val, new Progress("scoring validation", "queries", System.err));
-      List<SystemRun> testRuns = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
+      List<SystemRun> testRuns = HeldOutRuns.run(active.retriever(), active.scorer(),
           ranker, test, new Progress("scoring test", "queries", System.err));
       out.println();
       out.println("system            threshold  in-scope accuracy  out-of-scope recall");

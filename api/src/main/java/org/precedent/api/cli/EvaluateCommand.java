@@ -120,7 +120,7 @@ final class EvaluateCommand implements Callable<Integer> {
           : replyMatcher.apply(t.reply()).map(AnswerGroup::id).orElse(null);
       questions.add(new HeldOutRuns.HeldOutQuestion(t.id(), t.question(), t.category(), right));
     }
-    var runs = HeldOutRuns.run(active.knowledge().retriever(), active.scorer(),
+    var runs = HeldOutRuns.run(active.retriever(), active.scorer(),
         new Ranker(active.fusion()), active.safety(), questions, new Progress("evaluating", "tickets", System.err));
     EvaluationReport report = EvaluationReports.build(dataset + " (model " + active.version()
         + ")", runs, target);

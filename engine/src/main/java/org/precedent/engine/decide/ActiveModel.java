@@ -8,11 +8,12 @@ import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.engine.safety.SafetyPolicy;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
 /**
- * Everything in force in a data directory: the stored knowledge, the active model version (reranker
+ * Everything in force in a data directory: the stored knowledge and its open index, the active model version (reranker
  * and fusion), the safety policy ({@code DIR/safety.rules}, else the built-in rules) and the
  * thresholds ({@code DIR/thresholds.properties}, else {@link #DEFAULT_THRESHOLD}).
  */
@@ -23,15 +24,17 @@ public final class ActiveModel implements Closeable {
   static final String SAFETY = "safety.rules";
 
   private final Knowledge knowledge;
+  private final Retriever retriever;
   private final String version;
   private final Scorer scorer;
   private final FusionModel fusion;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
 
-  private ActiveModel(Knowledge knowledge, String version, Scorer scorer, FusionModel fusion,
-      SafetyPolicy safety, Thresholds thresholds) {
+  private ActiveModel(Knowledge knowledge, Retriever retriever, String version, Scorer scorer,
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds) {
     this.knowledge = knowledge;
+    this.retriever = retriever;
     this.version = version;
     this.scorer = scorer;
     this.fusion = fusion;
@@ -43,6 +46,7 @@ public final class ActiveModel implements Closeable {
   public static ActiveModel open(DataDir dir) throws IOException {
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
+    Retriever retriever = Retriever.open(knowledge);
     try {
       ModelStore store = new ModelStore(dir.models());
       String version = store.activeVersion().orElseThrow(() -> new IOException(
@@ -51,20 +55,25 @@ public final class ActiveModel implements Closeable {
       FusionModel fusion = FusionModel.load(store.directory(version));
       Path rules = dir.root().resolve(SAFETY);
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
-      return new ActiveModel(knowledge, version, new Scorer(model), fusion, safety,
+      return new ActiveModel(knowledge, retriever, version, new Scorer(model), fusion, safety,
           readThresholds(dir));
     } catch (IOException | RuntimeException e) {
-      knowledge.close();
+      retriever.close();
       throw e;
     }
   }
 
   public Advisor advisor() {
-    return new Advisor(knowledge.retriever(), scorer, fusion, safety, thresholds);
+    return new Advisor(retriever, scorer, fusion, safety, thresholds);
   }
 
   public Knowledge knowledge() {
     return knowledge;
+  }
+
+  /** BM25 retrieval over the knowledge's index, open until this is closed. */
+  public Retriever retriever() {
+    return retriever;
   }
 
   public String version() {
@@ -99,6 +108,6 @@ public final class ActiveModel implements Closeable {
 
   @Override
   public void close() throws IOException {
-    knowledge.close();
+    retriever.close();
   }
 }

@@ -25,6 +25,7 @@ import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.io.Progress;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
@@ -38,7 +39,7 @@ class AdvisorTest {
   @TempDir
   static Path tmp;
 
-  static Knowledge knowledge;
+  static Retriever retriever;
   static Scorer scorer;
   static FusionModel fusion;
   static final double TOP_CONFIDENCE = 1 / (1 + Math.exp(-2));
@@ -57,7 +58,7 @@ class AdvisorTest {
     new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard()).ingest(csv,
         ExportFormat.CSV, ColumnMapping.of(Map.of("question", "text", "label", "label",
             "category", "category")), Progress.silent(), Progress.silent());
-    knowledge = Knowledge.open(data).orElseThrow();
+    retriever = Retriever.open(Knowledge.open(data).orElseThrow());
     scorer = new Scorer(TinyModel.get().model());
     List<SystemModel> systems = Arrays.stream(ScoringSystem.values()).map(s -> {
       double[] weights = new double[s.features().size()];
@@ -76,12 +77,12 @@ class AdvisorTest {
 
   @AfterAll
   static void tearDown() throws Exception {
-    knowledge.close();
+    retriever.close();
   }
 
   private Decision decide(String question, String category, Thresholds thresholds,
       SafetyPolicy policy) {
-    return new Advisor(knowledge.retriever(), scorer, fusion, policy, thresholds)
+    return new Advisor(retriever, scorer, fusion, policy, thresholds)
         .decide(question, category);
   }
 
