@@ -13,5 +13,11 @@
  * changes since an earlier report.
  *
  * <p>All text taken from data is HTML-escaped before it reaches the page.
+ *
+ * <p>{@link org.precedent.engine.evaluate.HeldOutRuns} asks the held-out questions of each system,
+ * through the same candidate scoring, ranking and safety gate as a decision. The package depends on
+ * {@code engine.measure}, {@code engine.decide}, {@code engine.rerank}, {@code engine.safety}, {@code
+ * knowledge.retrieve}, {@code knowledge.io} and Jackson; the figures, the command line and the
+ * service's threshold page depend on it.
  */
 package org.precedent.engine.evaluate;
