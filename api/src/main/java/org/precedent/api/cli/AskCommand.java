@@ -12,6 +12,7 @@ import org.precedent.engine.decide.Pipeline;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.retrieve.RetrievalSettings;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import picocli.CommandLine.Command;
@@ -68,9 +69,10 @@ final class AskCommand implements Callable<Integer> {
     TextCleaner cleaner = TextCleaner.standard();
     RetrievalSettings settings = RetrievalSettings.standard().withCandidates(candidates);
     RetrievalPrinter printer = new RetrievalPrinter(out, 160);
-    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
+    Knowledge knowledge = Knowledge.open(dataDir).orElseThrow();
+    try (Retriever retriever = Retriever.open(knowledge)) {
       return eachQuestion(out, q -> printer.print(
-          knowledge.retriever().retrieve(cleaner.cleanQuestion(q), settings)));
+          retriever.retrieve(cleaner.cleanQuestion(q), settings)));
     }
   }
 

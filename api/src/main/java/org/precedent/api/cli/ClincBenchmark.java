@@ -101,13 +101,12 @@ final class ClincBenchmark implements Callable<Integer> {
     out.flush();
     NumericLibrary.announce(spec.commandLine().getErr());
     long start = System.nanoTime();
-    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
-      // Intent names are 2 to 4 words, learned better with a smaller step than the default.
-      TrainingReport report = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
-          .withEpochs(epochs, RerankerConfig.defaults().patience()).withLearningRate(2e-3))
-          .train(knowledge, pairs, validation, false);
-      out.println(report.summary());
-    }
+    Knowledge knowledge = Knowledge.open(dataDir).orElseThrow();
+    // Intent names are 2 to 4 words, learned better with a smaller step than the default.
+    TrainingReport report = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
+        .withEpochs(epochs, RerankerConfig.defaults().patience()).withLearningRate(2e-3))
+        .train(knowledge, pairs, validation, false);
+    out.println(report.summary());
     out.printf(Locale.ROOT, "trained in %.0f s%n", (System.nanoTime() - start) / 1e9);
     try (InForce active = InForce.open(dataDir)) {
       List<HeldOutRuns.HeldOutQuestion> val = validation.stream().map(v ->

@@ -26,6 +26,7 @@ import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Aggregation;
 import org.precedent.knowledge.retrieve.CandidateRecall;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
@@ -102,7 +103,8 @@ final class DemoCommand implements Callable<Integer> {
 
     Ingestor.ParsedExport heldOut = ingestor.parse(dir.resolve("heldout.csv"), ExportFormat.CSV,
         mapping, Progress.silent());
-    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
+    Knowledge knowledge = Knowledge.open(dataDir).orElseThrow();
+    try (Retriever retriever = Retriever.open(knowledge)) {
       List<CandidateRecall.Case> cases = new ArrayList<>();
       var replyMatcher = grouper.matcher(knowledge.grouping());
       for (Ticket t : heldOut.tickets()) {
@@ -111,7 +113,7 @@ final class DemoCommand implements Callable<Integer> {
           cases.add(new CandidateRecall.Case(t.question(), right.get().id()));
         }
       }
-      Map<Integer, Double> recall = CandidateRecall.measure(knowledge.retriever(), cases,
+      Map<Integer, Double> recall = CandidateRecall.measure(retriever, cases,
           Aggregation.MAX_PLUS_SUPPORT);
       out.printf(Locale.ROOT, "%n[2] held-out split: %,d tickets, %,d answered by a known answer "
           + "group, %,d one-offs%n", heldOut.tickets().size(), cases.size(),
@@ -126,28 +128,26 @@ final class DemoCommand implements Callable<Integer> {
     AtomicFiles.write(dataDir.safetyRules(), o -> o.write(rules));
     out.flush();
     NumericLibrary.announce(spec.commandLine().getErr());
-    try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
-      TeamModelTrainer trainer = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
-          .withEpochs(epochs, RerankerConfig.defaults().patience())
-          .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), 32));
-      Optional<String> current = trainer.currentVersion(knowledge);
-      if (current.isPresent()) {
-        out.printf(Locale.ROOT, "%n[3] model %s is already trained on these tickets "
-            + "('precedent train --data %s' trains again)%n", current.get(), data);
-      } else {
-        out.printf(Locale.ROOT, "%n[3] training the reranker (up to %d epochs; progress below; "
-            + "interrupt and run again to resume)%n", epochs);
-        out.flush();
-        TrainingReport trained;
-        try {
-          trained = trainer.train(knowledge, true);
-        } catch (ModelLoadException e) {
-          out.println("    " + e.getMessage() + "; starting afresh");
-          trained = trainer.train(knowledge, false);
-        }
-        out.println("    model " + trained.version() + " is active");
-        out.println(trained.summary().indent(4).stripTrailing());
+    TeamModelTrainer trainer = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
+        .withEpochs(epochs, RerankerConfig.defaults().patience())
+        .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), 32));
+    Optional<String> current = trainer.currentVersion(knowledge);
+    if (current.isPresent()) {
+      out.printf(Locale.ROOT, "%n[3] model %s is already trained on these tickets "
+          + "('precedent train --data %s' trains again)%n", current.get(), data);
+    } else {
+      out.printf(Locale.ROOT, "%n[3] training the reranker (up to %d epochs; progress below; "
+          + "interrupt and run again to resume)%n", epochs);
+      out.flush();
+      TrainingReport trained;
+      try {
+        trained = trainer.train(knowledge, true);
+      } catch (ModelLoadException e) {
+        out.println("    " + e.getMessage() + "; starting afresh");
+        trained = trainer.train(knowledge, false);
       }
+      out.println("    model " + trained.version() + " is active");
+      out.println(trained.summary().indent(4).stripTrailing());
     }
 
     out.printf(Locale.ROOT, "%n[4] evaluation on the held-out split%n");

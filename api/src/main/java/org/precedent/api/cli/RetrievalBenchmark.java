@@ -73,8 +73,7 @@ final class RetrievalBenchmark implements Callable<Integer> {
 
       List<String> questions = DemoTicketGenerator.generate(queries * 2, 11L).stream()
           .map(t -> TextCleaner.standard().cleanQuestion(t.subject() + "\n" + t.body())).toList();
-      try (Knowledge knowledge = Knowledge.open(dataDir).orElseThrow()) {
-        Retriever retriever = knowledge.retriever();
+      try (Retriever retriever = Retriever.open(Knowledge.open(dataDir).orElseThrow())) {
         RetrievalSettings settings = RetrievalSettings.standard();
         for (int i = 0; i < queries; i++) {
           retriever.retrieve(questions.get(i), settings);

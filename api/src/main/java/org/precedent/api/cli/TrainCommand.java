@@ -70,12 +70,11 @@ final class TrainCommand implements Callable<Integer> {
         .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
         .withLearningRate(learningRate);
     NumericLibrary.announce(spec.commandLine().getErr());
-    try (Knowledge knowledge = opened.get()) {
-      TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
-      out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),
-          dataDir.models().resolve(report.version()));
-      out.println(report.summary());
-    }
+    Knowledge knowledge = opened.get();
+    TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
+    out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),
+        dataDir.models().resolve(report.version()));
+    out.println(report.summary());
     return 0;
   }
 }

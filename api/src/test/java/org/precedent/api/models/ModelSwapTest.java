@@ -175,13 +175,12 @@ class ModelSwapTest {
       var dir = new DataDir(data);
       var trainer = new TeamModelTrainer(dir,
           RerankerConfig.defaults());
-      try (var knowledge = Knowledge.open(dir).orElseThrow()) {
-        assertEquals(Optional.of("v-0001"), trainer.currentVersion(knowledge));
-        TestCopies.earlierReleaseVersion(data, "v-0009");
-        TrainedData.delete(data.resolve("models/v-0001"));
-        Files.move(data.resolve("models/v-0009"), data.resolve("models/v-0001"));
-        assertEquals(Optional.empty(), trainer.currentVersion(knowledge));
-      }
+      Knowledge knowledge = Knowledge.open(dir).orElseThrow();
+      assertEquals(Optional.of("v-0001"), trainer.currentVersion(knowledge));
+      TestCopies.earlierReleaseVersion(data, "v-0009");
+      TrainedData.delete(data.resolve("models/v-0001"));
+      Files.move(data.resolve("models/v-0009"), data.resolve("models/v-0001"));
+      assertEquals(Optional.empty(), trainer.currentVersion(knowledge));
     } finally {
       TrainedData.delete(data);
     }

@@ -75,9 +75,8 @@ public final class TrainedData {
     RerankerConfig tiny = RerankerConfig.defaults().withSizes(32, 64).withEpochs(2, 1)
         .withMaxTokens(32, 24);
     long start = System.nanoTime();
-    try (Knowledge knowledge = Knowledge.open(data).orElseThrow()) {
-      new TeamModelTrainer(data, tiny).train(knowledge, false);
-    }
+    Knowledge knowledge = Knowledge.open(data).orElseThrow();
+    new TeamModelTrainer(data, tiny).train(knowledge, false);
     System.err.printf("test data: %d tickets ingested and a tiny model trained in %.1f s%n",
         TICKETS, (System.nanoTime() - start) / 1e9);
     // A second version, identical but for its name, to switch between.

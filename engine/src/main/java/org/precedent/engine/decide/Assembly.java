@@ -7,7 +7,7 @@ import org.precedent.engine.fusion.FusionModel;
 import org.precedent.engine.fusion.Ranker;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.safety.SafetyPolicy;
-import org.precedent.knowledge.store.Knowledge;
+import org.precedent.knowledge.retrieve.Retriever;
 
 /**
  * The one place where the stages are put together: the service, {@code ask}, {@code triage},
@@ -17,15 +17,14 @@ import org.precedent.knowledge.store.Knowledge;
 public final class Assembly {
   private Assembly() {}
 
-  /** Stages one and two over stored knowledge and a reranker: what fusion is fitted on. */
-  public static CandidateStages candidates(Knowledge knowledge, Scorer reranker) {
-    return new CandidateStages(new Bm25Candidates(knowledge.retriever()),
-        new RerankerScores(reranker));
+  /** Stages one and two over the knowledge's index and a reranker: what fusion is fitted on. */
+  public static CandidateStages candidates(Retriever retriever, Scorer reranker) {
+    return new CandidateStages(new Bm25Candidates(retriever), new RerankerScores(reranker));
   }
 
   /** Every stage, with a fitted fusion model, a safety policy and the thresholds in force. */
-  public static Pipeline pipeline(Knowledge knowledge, Scorer reranker, FusionModel fusion,
+  public static Pipeline pipeline(Retriever retriever, Scorer reranker, FusionModel fusion,
       SafetyPolicy safety, Thresholds thresholds) {
-    return new Pipeline(candidates(knowledge, reranker), new Ranker(fusion), safety, thresholds);
+    return new Pipeline(candidates(retriever, reranker), new Ranker(fusion), safety, thresholds);
   }
 }

@@ -9,29 +9,33 @@ import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.engine.safety.SafetyPolicy;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
 /**
- * Everything in force in a data directory, opened: the stored knowledge, the active model version
- * (reranker and fusion), the safety policy ({@code DIR/safety.rules}, else the built-in rules), the
- * thresholds ({@code DIR/thresholds.properties}, else {@link #DEFAULT_THRESHOLD}), and the
- * {@link Pipeline} that decides with them. Closing it closes the knowledge.
+ * Everything in force in a data directory, opened: the stored knowledge and its open index, the
+ * active model version (reranker and fusion), the safety policy ({@code DIR/safety.rules}, else the
+ * built-in rules), the thresholds ({@code DIR/thresholds.properties}, else
+ * {@link #DEFAULT_THRESHOLD}), and the {@link Pipeline} that decides with them. Closing it closes
+ * the index.
  */
 public final class InForce implements Closeable {
   /** Until a manager sets one from an evaluation, reply only when very sure (common practice). */
   public static final double DEFAULT_THRESHOLD = 0.95;
 
   private final Knowledge knowledge;
+  private final Retriever retriever;
   private final String version;
   private final Scorer scorer;
   private final FusionModel fusion;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
 
-  private InForce(Knowledge knowledge, String version, Scorer scorer, FusionModel fusion,
-      SafetyPolicy safety, Thresholds thresholds) {
+  private InForce(Knowledge knowledge, Retriever retriever, String version, Scorer scorer,
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds) {
     this.knowledge = knowledge;
+    this.retriever = retriever;
     this.version = version;
     this.scorer = scorer;
     this.fusion = fusion;
@@ -43,6 +47,7 @@ public final class InForce implements Closeable {
   public static InForce open(DataDir dir) throws IOException {
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
+    Retriever retriever = Retriever.open(knowledge);
     try {
       ModelStore store = new ModelStore(dir.models());
       String version = store.activeVersion().orElseThrow(() -> new IOException(
@@ -51,21 +56,26 @@ public final class InForce implements Closeable {
       FusionModel fusion = FusionModel.load(store.directory(version));
       Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
-      return new InForce(knowledge, version, new Scorer(model), fusion, safety,
+      return new InForce(knowledge, retriever, version, new Scorer(model), fusion, safety,
           readThresholds(dir));
     } catch (IOException | RuntimeException e) {
-      knowledge.close();
+      retriever.close();
       throw e;
     }
   }
 
   /** The pipeline that decides with what is in force. */
   public Pipeline pipeline() {
-    return Assembly.pipeline(knowledge, scorer, fusion, safety, thresholds);
+    return Assembly.pipeline(retriever, scorer, fusion, safety, thresholds);
   }
 
   public Knowledge knowledge() {
     return knowledge;
+  }
+
+  /** BM25 retrieval over the knowledge's index, open until this is closed. */
+  public Retriever retriever() {
+    return retriever;
   }
 
   public String version() {
@@ -100,6 +110,6 @@ public final class InForce implements Closeable {
 
   @Override
   public void close() throws IOException {
-    knowledge.close();
+    retriever.close();
   }
 }

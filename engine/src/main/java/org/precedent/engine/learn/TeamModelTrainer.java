@@ -15,6 +15,7 @@ import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.engine.rerank.train.RerankerTrainer;
 import org.precedent.knowledge.group.AnswerGroup;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
@@ -95,8 +96,10 @@ public final class TeamModelTrainer {
     Path work = dataDir.models().resolve("training");
     RerankerTrainer trainer = new RerankerTrainer(config, work);
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
-    FusionFit fit = FusionFit.fit(Assembly.candidates(knowledge, new Scorer(trained.model())),
-        fusion);
+    FusionFit fit;
+    try (Retriever retriever = Retriever.open(knowledge)) {
+      fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model())), fusion);
+    }
     // The fusion model is written with the version, so that its manifest covers it too.
     ModelStore store = new ModelStore(dataDir.models());
     String version = store.write(trained, fit::save);

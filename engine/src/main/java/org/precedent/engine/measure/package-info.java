@@ -23,6 +23,7 @@
  * an out-of-scope ticket is passed as wrong. Where a value is undefined (AUROC with only right or only
  * wrong answers, precision when nothing is answered) the result is NaN and the method says so.
  *
- * <p>Pure JDK; no state, no threads, no input/output.
+ * <p>Depends on the JDK and Apache Commons Statistics (the beta distribution behind the
+ * Clopper-Pearson bound) only, no other Precedent package; no state, no threads, no input/output.
  */
 package org.precedent.engine.measure;

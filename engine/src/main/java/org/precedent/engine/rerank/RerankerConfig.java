@@ -1,12 +1,10 @@
 package org.precedent.engine.rerank;
 
-import java.io.IOException;
-import java.io.StringReader;
-import java.io.StringWriter;
-import java.util.Properties;
+import org.precedent.engine.rerank.net.NetworkSettings;
 
 /**
- * Sizes and training settings of one reranker.
+ * Sizes and training settings of one reranker. Kept as {@code config.properties} beside a saved model
+ * and a training run's checkpoints, one line per component ({@link PropertiesRecords}).
  *
  * @param embedding         token embedding width
  * @param hidden            LSTM width of encoder and decoder (and of the attention projections)
@@ -99,59 +97,9 @@ public record RerankerConfig(int embedding, int hidden, int maxQuestionTokens, i
         learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
   }
 
-  /** As properties text: the form kept beside a saved model. */
-  public String toProperties() {
-    Properties p = new Properties();
-    p.setProperty("embedding", Integer.toString(embedding));
-    p.setProperty("hidden", Integer.toString(hidden));
-    p.setProperty("maxQuestionTokens", Integer.toString(maxQuestionTokens));
-    p.setProperty("maxAnswerTokens", Integer.toString(maxAnswerTokens));
-    p.setProperty("vocabCap", Integer.toString(vocabCap));
-    p.setProperty("minCount", Integer.toString(minCount));
-    p.setProperty("batchSize", Integer.toString(batchSize));
-    p.setProperty("learningRate", Double.toString(learningRate));
-    p.setProperty("maxEpochs", Integer.toString(maxEpochs));
-    p.setProperty("patience", Integer.toString(patience));
-    p.setProperty("clipNorm", Double.toString(clipNorm));
-    p.setProperty("seed", Long.toString(seed));
-    p.setProperty("validationShare", Double.toString(validationShare));
-    p.setProperty("unconditionalShare", Double.toString(unconditionalShare));
-    StringWriter out = new StringWriter();
-    try {
-      p.store(out, "reranker configuration");
-    } catch (IOException e) {
-      throw new IllegalStateException(e);
-    }
-    return out.toString();
-  }
-
-  public static RerankerConfig fromProperties(String text) {
-    Properties p = new Properties();
-    try {
-      p.load(new StringReader(text));
-      return new RerankerConfig(i(p, "embedding"), i(p, "hidden"), i(p, "maxQuestionTokens"), i(p, "maxAnswerTokens"),
-          i(p, "vocabCap"), i(p, "minCount"), i(p, "batchSize"), d(p, "learningRate"), i(p, "maxEpochs"),
-          i(p, "patience"), d(p, "clipNorm"), Long.parseLong(req(p, "seed")), d(p, "validationShare"),
-          d(p, "unconditionalShare"));
-    } catch (IOException | NumberFormatException e) {
-      throw new IllegalArgumentException("unreadable reranker configuration: " + e.getMessage(), e);
-    }
-  }
-
-  private static int i(Properties p, String key) {
-    return Integer.parseInt(req(p, key));
-  }
-
-  private static double d(Properties p, String key) {
-    return Double.parseDouble(req(p, key));
-  }
-
-  private static String req(Properties p, String key) {
-    String v = p.getProperty(key);
-    if (v == null) {
-      throw new IllegalArgumentException("reranker configuration lacks '" + key + "'");
-    }
-    return v.trim();
+  /** What the network is built from: its sizes, the weight seed, Adam's step and the clipping norm. */
+  public NetworkSettings network(int vocabularySize) {
+    return new NetworkSettings(embedding, hidden, vocabularySize, seed, learningRate, clipNorm);
   }
 
   private static void positive(String name, int value) {

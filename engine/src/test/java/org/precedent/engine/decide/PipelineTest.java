@@ -29,6 +29,7 @@ import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.io.Progress;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
@@ -42,9 +43,9 @@ class PipelineTest {
   @TempDir
   static Path tmp;
 
-  static Knowledge knowledge;
-  static Knowledge callBack;
-  static Knowledge callBackDeclared;
+  static Retriever retriever;
+  static Retriever callBack;
+  static Retriever callBackDeclared;
   static Scorer scorer;
   static FusionModel fusion;
   static final double TOP_CONFIDENCE = 1 / (1 + Math.exp(-2));
@@ -63,7 +64,7 @@ class PipelineTest {
     new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard()).ingest(csv,
         ExportFormat.CSV, ColumnMapping.of(Map.of("question", "text", "label", "label",
             "category", "category")), Progress.silent(), Progress.silent());
-    knowledge = Knowledge.open(data).orElseThrow();
+    retriever = Retriever.open(Knowledge.open(data).orElseThrow());
     callBack = ingestCallBackAnswers(tmp.resolve("call-back"), false);
     callBackDeclared = ingestCallBackAnswers(tmp.resolve("call-back-declared"), true);
     scorer = new Scorer(TinyModel.get().model());
@@ -84,7 +85,7 @@ class PipelineTest {
 
   @AfterAll
   static void tearDown() throws Exception {
-    knowledge.close();
+    retriever.close();
     callBack.close();
     callBackDeclared.close();
   }
@@ -93,7 +94,7 @@ class PipelineTest {
    * Three past replies that give the desk's number (from Ofcom's range reserved for drama, so no
    * one's): redacted unless the data directory declares it as the desk's own.
    */
-  private static Knowledge ingestCallBackAnswers(Path dir, boolean declared) throws Exception {
+  private static Retriever ingestCallBackAnswers(Path dir, boolean declared) throws Exception {
     DataDir data = new DataDir(dir);
     if (declared) {
       Files.createDirectories(dir);
@@ -108,12 +109,12 @@ class PipelineTest {
     Ingestor.of(data, AnswerGrouper.standard()).ingest(csv, ExportFormat.CSV,
         ColumnMapping.of(Map.of("id", "id", "question", "question", "reply", "reply")),
         Progress.silent(), Progress.silent());
-    return Knowledge.open(data).orElseThrow();
+    return Retriever.open(Knowledge.open(data).orElseThrow());
   }
 
   private Decision decide(String question, String category, Thresholds thresholds,
       SafetyPolicy policy) {
-    return Assembly.pipeline(knowledge, scorer, fusion, policy, thresholds)
+    return Assembly.pipeline(retriever, scorer, fusion, policy, thresholds)
         .decide(question, category);
   }
 

@@ -28,6 +28,7 @@ import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.retrieve.Evidence;
 import org.precedent.knowledge.retrieve.Retrieval;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
@@ -61,12 +62,13 @@ class FusionSplitTest {
     new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard()).ingest(file,
         ExportFormat.CSV, ColumnMapping.of(Map.of("id", "id", "question", "text", "label", "label")),
         Progress.silent(), Progress.silent());
-    try (Knowledge knowledge = Knowledge.open(data).orElseThrow()) {
+    Knowledge knowledge = Knowledge.open(data).orElseThrow();
+    try (Retriever retriever = Retriever.open(knowledge)) {
       List<FusionQuestion> questions = TeamModelTrainer.fusionQuestions(knowledge);
       assertFalse(questions.isEmpty(), "the split holds some of 150 tickets");
       assertTrue(questions.stream().allMatch(q -> Splits.isFusionTicket(q.ticketId())));
       List<String[]> asked = new ArrayList<>();
-      CandidateSource bm25 = new Bm25Candidates(knowledge.retriever());
+      CandidateSource bm25 = new Bm25Candidates(retriever);
       CandidateSource watched = (question, excluded) -> {
         Retrieval r = bm25.retrieve(question, excluded);
         Stream.concat(r.candidates().stream().flatMap(c -> c.evidence().stream()),

@@ -71,9 +71,8 @@ class TeamModelDeterminismTest {
     RerankerConfig tiny = RerankerConfig.defaults().withSizes(16, 32).withEpochs(2, 1)
         .withMaxTokens(24, 16);
     TrainingReport report;
-    try (Knowledge knowledge = Knowledge.open(data).orElseThrow()) {
-      report = new TeamModelTrainer(data, tiny).train(knowledge, false);
-    }
+    Knowledge knowledge = Knowledge.open(data).orElseThrow();
+    report = new TeamModelTrainer(data, tiny).train(knowledge, false);
     ModelStore store = new ModelStore(data.models());
     RerankerModel model = store.load(report.version());
     Path version = store.directory(report.version());

@@ -40,10 +40,24 @@ class ProportionsTest {
   @Test
   void clopperPearsonLowerBoundWithAllSuccessesIsAlphaToTheOneOverN() {
     // Clopper and Pearson (1934): the lower limit solves P(X >= x; p) = alpha; for x = n that tail is
-    // p^n, so the bound is alpha^(1/n). Checked through the general bisection path.
+    // p^n, so the bound is alpha^(1/n). Checked through the general beta-quantile path.
     for (int n : new int[] {1, 2, 7, 59, 100, 1000}) {
       for (double alpha : new double[] {0.05, 0.01, 0.005}) {
         assertEquals(Math.pow(alpha, 1.0 / n), Proportions.clopperPearsonLower(n, n, alpha), 1e-12,
+            "n=" + n + " alpha=" + alpha);
+      }
+    }
+  }
+
+  @Test
+  void clopperPearsonLowerBoundWithOneSuccessHasAClosedForm() {
+    // With x = 1 the tail is P(X >= 1; p) = 1 - (1 - p)^n, i.e. I_p(1, n) = 1 - (1 - p)^n
+    // (Abramowitz and Stegun 1964, 26.5, from B(1, b) = 1/b); solving 1 - (1 - L)^n = alpha gives
+    // L = 1 - (1 - alpha)^(1/n). This example used to test the hand-written incomplete beta.
+    for (int n : new int[] {1, 3, 29, 400}) {
+      for (double alpha : new double[] {0.05, 0.025, 0.005}) {
+        double expected = -Math.expm1(Math.log1p(-alpha) / n);
+        assertEquals(expected, Proportions.clopperPearsonLower(1, n, alpha), 1e-12 * Math.max(1.0, expected),
             "n=" + n + " alpha=" + alpha);
       }
     }

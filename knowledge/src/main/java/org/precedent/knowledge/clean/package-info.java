@@ -20,5 +20,8 @@
  * org.precedent.knowledge.clean.Luhn}), the demo's TVW account numbers and phone numbers (E.164,
  * UK national, NANP) with the typed {@link org.precedent.knowledge.clean.Placeholders}. Dates,
  * amounts, ticket references, meter readings, postcodes and times are left alone.
+ *
+ * <p>The package depends on the JDK alone and on no other package of Precedent, so that anything
+ * that handles customers' text (ingest, the decision, the service's logs) can use it.
  */
 package org.precedent.knowledge.clean;

@@ -20,6 +20,7 @@ import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.group.Grouping;
 import org.precedent.knowledge.io.Progress;
+import org.precedent.knowledge.retrieve.TicketIndex;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
@@ -147,10 +148,8 @@ public final class Ingestor {
       List<String> sources = new ArrayList<>();
       Optional<Knowledge> current = Knowledge.open(dataDir);
       if (current.isPresent()) {
-        try (Knowledge k = current.get()) {
-          all.putAll(k.tickets());
-          sources.addAll(k.manifest().sources());
-        }
+        all.putAll(current.get().tickets());
+        sources.addAll(current.get().manifest().sources());
       }
       long stored = 0;
       for (Ticket t : parsed.tickets()) {
@@ -164,7 +163,7 @@ public final class Ingestor {
       List<Ticket> tickets = List.copyOf(all.values());
       Grouping grouping = grouper.group(tickets);
       if (!parsed.tickets().isEmpty()) {
-        Knowledge.replace(dataDir, tickets, grouping, sources, indexing);
+        Knowledge.replace(dataDir, tickets, grouping, sources, TicketIndex.builder(indexing));
       }
       List<IngestReport.GroupSize> sizes = new ArrayList<>();
       for (AnswerGroup g : grouping.groups()) {

@@ -27,6 +27,7 @@ import org.apache.lucene.search.TermQuery;
 import org.apache.lucene.store.FSDirectory;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.Grouping;
+import org.precedent.knowledge.store.Knowledge;
 
 /**
  * BM25 retrieval of past tickets for a new question, grouped into candidate answers.
@@ -50,6 +51,11 @@ public final class Retriever implements Closeable {
     this.searcher = new IndexSearcher(reader);
     this.searcher.setSimilarity(TicketIndex.similarity());
     this.groups = grouping.byId();
+  }
+
+  /** Opens the index of a stored generation; the caller closes it. */
+  public static Retriever open(Knowledge knowledge) throws IOException {
+    return open(knowledge.indexDirectory(), knowledge.grouping());
   }
 
   /** Opens the index in {@code indexDir}, whose tickets were grouped as {@code grouping}. */

@@ -15,6 +15,7 @@ import org.apache.lucene.index.IndexWriterConfig;
 import org.apache.lucene.search.similarities.BM25Similarity;
 import org.apache.lucene.store.FSDirectory;
 import org.precedent.knowledge.io.Progress;
+import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
 
 /**
@@ -50,6 +51,11 @@ public final class TicketIndex {
 
   static BM25Similarity similarity() {
     return new BM25Similarity(K1, B);
+  }
+
+  /** What the store calls to write a new generation's index, reporting to {@code progress}. */
+  public static Knowledge.IndexBuilder builder(Progress progress) {
+    return (dir, tickets, grouping) -> build(dir, tickets, grouping.groupOfTicket(), progress);
   }
 
   /**

@@ -8,7 +8,6 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.datatype.jsr310.JavaTimeModule;
 import java.io.BufferedReader;
 import java.io.BufferedWriter;
-import java.io.Closeable;
 import java.io.IOException;
 import java.io.OutputStreamWriter;
 import java.nio.charset.StandardCharsets;
@@ -20,36 +19,41 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.precedent.knowledge.group.Grouping;
-import org.precedent.knowledge.io.Progress;
-import org.precedent.knowledge.retrieve.Retriever;
-import org.precedent.knowledge.retrieve.TicketIndex;
 import org.precedent.knowledge.ticket.Ticket;
 
 /**
- * One generation of stored knowledge: the cleaned tickets, their answer groups and the index.
+ * One generation of stored knowledge: the cleaned tickets and their answer groups, read into memory,
+ * and where the generation's search index lies.
  *
  * <p>Files of a generation: {@code tickets.jsonl} (one ticket a line), {@code groups.json},
- * {@code manifest.json}, and {@code index/} (Lucene). A generation never changes once written.
+ * {@code manifest.json}, and {@code index/}. A generation never changes once written. The store
+ * decides where the index goes and when it is written (before the manifest, so a generation with a
+ * manifest is complete); what goes in it is the retrieval package's business, handed in as an
+ * {@link IndexBuilder} and opened from {@link #indexDirectory()}, so the store does not depend on it.
  */
-public final class Knowledge implements Closeable {
+public final class Knowledge {
   static final ObjectMapper JSON = new ObjectMapper()
       .registerModule(new JavaTimeModule())
       .disable(SerializationFeature.WRITE_DATES_AS_TIMESTAMPS)
       .disable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
+  private static final String INDEX = "index";
 
   private final Path generation;
   private final Map<String, Ticket> tickets;
   private final Grouping grouping;
   private final Manifest manifest;
-  private final Retriever retriever;
 
-  private Knowledge(Path generation, Map<String, Ticket> tickets, Grouping grouping,
-      Manifest manifest, Retriever retriever) {
+  /** Writes a generation's search index into an empty directory. */
+  @FunctionalInterface
+  public interface IndexBuilder {
+    void build(Path indexDirectory, List<Ticket> tickets, Grouping grouping) throws IOException;
+  }
+
+  private Knowledge(Path generation, Map<String, Ticket> tickets, Grouping grouping, Manifest manifest) {
     this.generation = generation;
     this.tickets = Collections.unmodifiableMap(tickets);
     this.grouping = grouping;
     this.manifest = manifest;
-    this.retriever = retriever;
   }
 
   /** The knowledge in force in {@code dir}, or empty when nothing was ingested yet. */
@@ -69,17 +73,18 @@ public final class Knowledge implements Closeable {
     }
     Grouping grouping = JSON.readValue(generation.resolve("groups.json").toFile(), Grouping.class);
     Manifest manifest = JSON.readValue(generation.resolve("manifest.json").toFile(), Manifest.class);
-    Retriever retriever = Retriever.open(generation.resolve("index"), grouping);
-    return Optional.of(new Knowledge(generation, tickets, grouping, manifest, retriever));
+    return Optional.of(new Knowledge(generation, tickets, grouping, manifest));
   }
 
   /**
    * Writes a new generation holding exactly {@code tickets} and puts it in force. The caller holds
    * the data directory's lock. On any failure the unfinished generation is removed and the previous
    * one stays in force.
+   *
+   * @param index writes the search index of {@code tickets} into the generation's index directory
    */
   public static void replace(DataDir dir, List<Ticket> tickets, Grouping grouping,
-      List<String> sources, Progress indexing) throws IOException {
+      List<String> sources, IndexBuilder index) throws IOException {
     Path generation = dir.newGeneration();
     try {
       AtomicFiles.write(generation.resolve("tickets.jsonl"), out -> {
@@ -92,9 +97,9 @@ public final class Knowledge implements Closeable {
       });
       AtomicFiles.write(generation.resolve("groups.json"), out -> JSON.writeValue(
           nonClosing(out), grouping));
-      Path index = generation.resolve("index");
-      Files.createDirectory(index);
-      TicketIndex.build(index, tickets, grouping.groupOfTicket(), indexing);
+      Path indexDirectory = generation.resolve(INDEX);
+      Files.createDirectory(indexDirectory);
+      index.build(indexDirectory, tickets, grouping);
       Manifest manifest = new Manifest(java.time.Instant.now(), tickets.size(),
           grouping.groups().size(), grouping.oneOffs().size(), grouping.method(), sources);
       // The manifest is written last: a generation without one was never finished.
@@ -133,12 +138,8 @@ public final class Knowledge implements Closeable {
     return manifest;
   }
 
-  public Retriever retriever() {
-    return retriever;
-  }
-
-  @Override
-  public void close() throws IOException {
-    retriever.close();
+  /** The directory of this generation's search index, as its {@link IndexBuilder} wrote it. */
+  public Path indexDirectory() {
+    return generation.resolve(INDEX);
   }
 }

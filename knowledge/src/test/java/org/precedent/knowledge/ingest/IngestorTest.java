@@ -18,6 +18,7 @@ import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
 
@@ -74,12 +75,13 @@ class IngestorTest {
     assertEquals(0, report.updated());
     assertEquals(0, report.rejected());
     assertEquals(2, report.groupSizes().size());
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    try (Retriever retriever = Retriever.open(k)) {
       Ticket t = k.tickets().get("R-2");
       assertTrue(t.question().contains("\"04821\""), t.question());
       assertEquals("meters", t.category());
       assertEquals(java.time.Instant.parse("2026-03-02T09:30:00Z"), t.created());
-      assertEquals(6, k.retriever().size());
+      assertEquals(6, retriever.size());
     }
   }
 
@@ -109,9 +111,8 @@ class IngestorTest {
     IngestReport report = ingest(write("numbers.csv", repliesWithNumbers("01632 960999")));
     assertEquals(List.of(new IngestReport.ProposedDetail("phone", "01632 960999", 3, 9)),
         report.proposedOwnDetails());
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      assertTrue(k.tickets().get("A0-1").reply().contains("[PHONE]"), "not declared yet");
-    }
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    assertTrue(k.tickets().get("A0-1").reply().contains("[PHONE]"), "not declared yet");
   }
 
   @Test
@@ -122,12 +123,11 @@ class IngestorTest {
         write("numbers.csv", repliesWithNumbers("01632 960999")), ExportFormat.CSV, mapping,
         Progress.silent(), Progress.silent());
     assertEquals(List.of(), report.proposedOwnDetails());
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      assertTrue(k.tickets().get("A1-2").reply().contains("01632 960999"),
-          k.tickets().get("A1-2").reply());
-      assertTrue(k.tickets().get("C-1").reply().contains("[PHONE]"), "a customer's number");
-      assertTrue(k.grouping().groups().stream().noneMatch(g -> g.canonical().contains("[PHONE]")));
-    }
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    assertTrue(k.tickets().get("A1-2").reply().contains("01632 960999"),
+        k.tickets().get("A1-2").reply());
+    assertTrue(k.tickets().get("C-1").reply().contains("[PHONE]"), "a customer's number");
+    assertTrue(k.grouping().groups().stream().noneMatch(g -> g.canonical().contains("[PHONE]")));
   }
 
   @Test
@@ -148,8 +148,9 @@ class IngestorTest {
     assertEquals(0, again.stored());
     assertEquals(6, again.updated());
     assertEquals(6, again.totalTickets());
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      assertEquals(6, k.retriever().size(), "the index holds each ticket once");
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    try (Retriever retriever = Retriever.open(k)) {
+      assertEquals(6, retriever.size(), "the index holds each ticket once");
     }
   }
 
@@ -198,13 +199,12 @@ class IngestorTest {
         ColumnMapping.of(Map.of("question", "text", "label", "category")), Progress.silent(),
         Progress.silent());
     assertEquals(3, report.stored());
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      Ticket t = k.tickets().get("labelled.csv:2");
-      assertEquals("how do i change my pin", t.question());
-      assertEquals("pin_change", t.label());
-      assertEquals("pin change", t.reply());
-      assertEquals(List.of("lost_card", "pin_change").size(), k.grouping().groups().size());
-    }
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    Ticket t = k.tickets().get("labelled.csv:2");
+    assertEquals("how do i change my pin", t.question());
+    assertEquals("pin_change", t.label());
+    assertEquals("pin change", t.reply());
+    assertEquals(List.of("lost_card", "pin_change").size(), k.grouping().groups().size());
   }
 
   @Test
@@ -229,9 +229,8 @@ class IngestorTest {
     assertFails(junk, "not a text export");
 
     assertEquals(before, data.currentGeneration().orElseThrow(), "no new generation");
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      assertEquals(6, k.tickets().size());
-    }
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    assertEquals(6, k.tickets().size());
   }
 
   @Test
@@ -249,10 +248,9 @@ class IngestorTest {
         file + ":4: field id: 'T-1' is already the id of line 2, which is kept; this row is not stored",
         file + ":5: field id: 'T-1' is already the id of line 2, which is kept; this row is not stored"),
         report.problems().stream().map(RowProblem::toString).toList());
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      assertEquals("Missed bin\nMy bin was not emptied", k.tickets().get("T-1").question(),
-          "the first row of the id is the one stored");
-    }
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    assertEquals("Missed bin\nMy bin was not emptied", k.tickets().get("T-1").question(),
+        "the first row of the id is the one stored");
   }
 
   @Test
@@ -304,9 +302,8 @@ class IngestorTest {
       assertEquals(5, report.read());
       assertEquals(3, report.stored(), "the other rows go in; a bad byte in an unmapped column is "
           + "not stored and does not matter");
-      try (Knowledge k = Knowledge.open(fresh).orElseThrow()) {
-        assertEquals(java.util.Set.of("T-1", "R-2", "R-3"), k.tickets().keySet());
-      }
+      Knowledge k = Knowledge.open(fresh).orElseThrow();
+      assertEquals(java.util.Set.of("T-1", "R-2", "R-3"), k.tickets().keySet());
     }
   }
 
@@ -382,15 +379,14 @@ class IngestorTest {
     Path partial = data.knowledge().resolve("gen-000099");
     Files.createDirectories(partial.resolve("index"));
     Files.writeString(partial.resolve("index").resolve("_0.cfs"), "half");
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
+    Knowledge k = Knowledge.open(data).orElseThrow();
+    try (Retriever retriever = Retriever.open(k)) {
       assertEquals(current, k.generation(), "the old generation still serves");
-      assertEquals(6, k.retriever().size());
+      assertEquals(6, retriever.size());
     }
     ingest(write("more.csv", HEADER + "N-1,Missed bin,\"bin not emptied\",\"" + MISSED + "\",bins,\n"));
     assertFalse(Files.exists(partial), "the next change removes what the crash left");
-    try (Knowledge k = Knowledge.open(data).orElseThrow()) {
-      assertEquals(7, k.tickets().size());
-    }
+    assertEquals(7, Knowledge.open(data).orElseThrow().tickets().size());
   }
 
   private void assertFails(Path file, String expected) {

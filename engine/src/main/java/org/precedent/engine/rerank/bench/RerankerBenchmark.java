@@ -48,7 +48,7 @@ public final class RerankerBenchmark {
     Random random = new Random(7);
     Vocabulary vocabulary = syntheticVocabulary(config.vocabCap());
     PairCodec codec = new PairCodec(new Tokenizer(), vocabulary, config.maxQuestionTokens(), config.maxAnswerTokens());
-    ComputationGraph graph = Seq2SeqReranker.create(config, vocabulary.size());
+    ComputationGraph graph = Seq2SeqReranker.create(config.network(vocabulary.size()));
     line("reranker size: vocabulary %d, embedding %d, hidden %d, parameters %d", vocabulary.size(),
         config.embedding(), config.hidden(), graph.numParams());
 

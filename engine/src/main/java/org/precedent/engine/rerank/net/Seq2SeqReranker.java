@@ -17,7 +17,6 @@ import org.deeplearning4j.nn.weights.WeightInit;
 import org.nd4j.linalg.activations.Activation;
 import org.nd4j.linalg.learning.config.Adam;
 import org.nd4j.linalg.lossfunctions.impl.LossSparseMCXENT;
-import org.precedent.engine.rerank.RerankerConfig;
 
 /**
  * The reranker network: an attentional encoder-decoder that gives P(answer | question) token by token.
@@ -64,15 +63,16 @@ public final class Seq2SeqReranker {
    * whose gradient norm exceeds {@code clipNorm} has it scaled down to that norm, which keeps the
    * direction and tames the occasional exploding step of recurrent nets.
    */
-  public static ComputationGraph create(RerankerConfig config, int vocabularySize) {
-    int e = config.embedding();
-    int h = config.hidden();
+  public static ComputationGraph create(NetworkSettings settings) {
+    int e = settings.embedding();
+    int h = settings.hidden();
+    int vocabularySize = settings.vocabularySize();
     ComputationGraphConfiguration conf = new NeuralNetConfiguration.Builder()
-        .seed(config.seed())
-        .updater(new Adam(config.learningRate()))
+        .seed(settings.seed())
+        .updater(new Adam(settings.learningRate()))
         .weightInit(WeightInit.XAVIER)
         .gradientNormalization(GradientNormalization.ClipL2PerLayer)
-        .gradientNormalizationThreshold(config.clipNorm())
+        .gradientNormalizationThreshold(settings.clipNorm())
         .trainingWorkspaceMode(WorkspaceMode.ENABLED)
         .inferenceWorkspaceMode(WorkspaceMode.ENABLED)
         .graphBuilder()

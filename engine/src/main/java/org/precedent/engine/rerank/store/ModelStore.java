@@ -3,8 +3,6 @@ package org.precedent.engine.rerank.store;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
-import java.io.StringReader;
-import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.DirectoryStream;
 import java.nio.file.FileAlreadyExistsException;
@@ -21,6 +19,7 @@ import java.util.regex.Pattern;
 import org.deeplearning4j.nn.graph.ComputationGraph;
 import org.deeplearning4j.util.ModelSerializer;
 import org.precedent.engine.rerank.ModelLoadException;
+import org.precedent.engine.rerank.PropertiesRecords;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.TrainedReranker;
@@ -46,6 +45,7 @@ public final class ModelStore {
   static final String WEIGHTS = "model.zip";
   static final String VOCABULARY = "vocab.txt";
   static final String CONFIG = "config.properties";
+  private static final String ANTI_LM_LAMBDA = "antiLmLambda";
   static final String METRICS = "metrics.json";
   static final String MANIFEST = "manifest.properties";
   private static final Pattern VERSION = Pattern.compile("v-\\d{4,}");
@@ -205,7 +205,7 @@ public final class ModelStore {
     Path manifestFile = dir.resolve(MANIFEST);
     Properties manifest;
     try {
-      manifest = properties(manifestFile);
+      manifest = PropertiesRecords.load(manifestFile);
     } catch (IllegalArgumentException e) {
       throw new ModelLoadException("model file " + manifestFile + " is damaged (" + e.getMessage()
           + "); train again ('precedent train')", e);
@@ -259,9 +259,12 @@ public final class ModelStore {
     } catch (IOException e) {
       throw new ModelLoadException(e.getMessage(), e);
     }
-    Properties config = properties(dir.resolve(CONFIG));
-    double lambda = Double.parseDouble(config.getProperty("antiLmLambda", "0"));
-    String text = Files.readString(dir.resolve(CONFIG), StandardCharsets.UTF_8);
+    Path configFile = dir.resolve(CONFIG);
+    Properties config = PropertiesRecords.load(configFile);
+    // The anti-LM weight, chosen after training, sits beside the configuration the network was built
+    // with; versions without it score with log P(a|q) alone.
+    double lambda = PropertiesRecords.takeDouble(config, ANTI_LM_LAMBDA, 0.0, configFile);
+    RerankerConfig rerankerConfig = PropertiesRecords.toRecord(config, RerankerConfig.class, configFile);
     ComputationGraph graph;
     try {
       graph = ModelSerializer.restoreComputationGraph(dir.resolve(WEIGHTS).toFile(), false);
@@ -269,15 +272,17 @@ public final class ModelStore {
       throw new ModelLoadException("cannot read reranker weights " + dir.resolve(WEIGHTS)
           + ": the file is corrupt or truncated (" + e.getClass().getSimpleName() + ")", e);
     }
-    return new RerankerModel(graph, vocabulary, RerankerConfig.fromProperties(text), lambda);
+    return new RerankerModel(graph, vocabulary, rerankerConfig, lambda);
   }
 
   private static void writeFiles(Path dir, TrainedReranker trained) throws IOException {
     RerankerModel model = trained.model();
     ModelSerializer.writeModel(model.network(), dir.resolve(WEIGHTS).toFile(), false);
     model.vocabulary().save(dir.resolve(VOCABULARY));
-    String config = model.config().toProperties() + "antiLmLambda=" + model.antiLmLambda() + "\n";
-    Files.writeString(dir.resolve(CONFIG), config, StandardCharsets.UTF_8);
+    Properties config = PropertiesRecords.toProperties(model.config());
+    config.setProperty(ANTI_LM_LAMBDA, Double.toString(model.antiLmLambda()));
+    Files.writeString(dir.resolve(CONFIG), PropertiesRecords.text(config, "reranker configuration"),
+        StandardCharsets.UTF_8);
     Map<String, Object> metrics = new LinkedHashMap<>();
     metrics.put("savedAt", Instant.now().toString());
     metrics.put("dataSha256", trained.dataFingerprint());
@@ -293,9 +298,8 @@ public final class ModelStore {
       AtomicFiles.sync(dir.resolve(file));
       manifest.setProperty(file, AtomicFiles.sha256(dir.resolve(file)));
     }
-    StringWriter out = new StringWriter();
-    manifest.store(out, "SHA-256 of every file of this model version");
-    AtomicFiles.writeString(dir.resolve(MANIFEST), out.toString());
+    AtomicFiles.writeString(dir.resolve(MANIFEST),
+        PropertiesRecords.text(manifest, "SHA-256 of every file of this model version"));
   }
 
   private String nextVersion() throws IOException {
@@ -312,14 +316,4 @@ public final class ModelStore {
     }
     return version;
   }
-
-  private static Properties properties(Path file) throws IOException {
-    if (!Files.isRegularFile(file)) {
-      throw new ModelLoadException("reranker file " + file + " is missing");
-    }
-    Properties p = new Properties();
-    p.load(new StringReader(Files.readString(file, StandardCharsets.UTF_8)));
-    return p;
-  }
-
 }

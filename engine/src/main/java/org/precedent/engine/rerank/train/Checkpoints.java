@@ -1,13 +1,13 @@
 package org.precedent.engine.rerank.train;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.deeplearning4j.nn.graph.ComputationGraph;
 import org.deeplearning4j.util.ModelSerializer;
 import org.precedent.engine.rerank.ModelLoadException;
+import org.precedent.engine.rerank.PropertiesRecords;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.engine.rerank.tokens.Vocabulary;
@@ -44,7 +44,7 @@ final class Checkpoints {
     Files.deleteIfExists(dir.resolve(STATE));
     deleteZipsExcept("");
     Files.deleteIfExists(dir.resolve(BEST));
-    AtomicFiles.writeString(dir.resolve(CONFIG), config.toProperties());
+    AtomicFiles.writeString(dir.resolve(CONFIG), PropertiesRecords.text(config, "reranker configuration"));
     vocabulary.save(dir.resolve(VOCABULARY));
   }
 
@@ -62,11 +62,11 @@ final class Checkpoints {
   }
 
   TrainingState loadState() throws IOException {
-    return TrainingState.fromProperties(Files.readString(dir.resolve(STATE), StandardCharsets.UTF_8));
+    return TrainingState.read(dir.resolve(STATE));
   }
 
   RerankerConfig loadConfig() throws IOException {
-    return RerankerConfig.fromProperties(Files.readString(dir.resolve(CONFIG), StandardCharsets.UTF_8));
+    return PropertiesRecords.read(dir.resolve(CONFIG), RerankerConfig.class);
   }
 
   Vocabulary loadVocabulary() throws IOException {

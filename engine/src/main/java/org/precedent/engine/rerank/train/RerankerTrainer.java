@@ -111,7 +111,7 @@ public final class RerankerTrainer {
     } else {
       vocabulary = buildVocabulary(split.train());
       checkpoints.begin(config, vocabulary);
-      graph = Seq2SeqReranker.create(config, vocabulary.size());
+      graph = Seq2SeqReranker.create(config.network(vocabulary.size()));
       state = TrainingState.start(fingerprint, threads.toText());
     }
     PairCodec codec = new PairCodec(new Tokenizer(), vocabulary, config.maxQuestionTokens(), config.maxAnswerTokens());

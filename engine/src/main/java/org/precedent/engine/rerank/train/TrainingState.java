@@ -1,9 +1,9 @@
 package org.precedent.engine.rerank.train;
 
 import java.io.IOException;
-import java.io.StringReader;
-import java.io.StringWriter;
+import java.nio.file.Path;
 import java.util.Properties;
+import org.precedent.engine.rerank.PropertiesRecords;
 
 /**
  * Where training stopped, enough to continue exactly: the next batch of which epoch (each epoch's order
@@ -28,52 +28,15 @@ record TrainingState(int epoch, int nextBatch, double bestValidationLoss, int ep
         computeThreads);
   }
 
+  /** As the text of {@value Checkpoints#STATE}. */
   String toProperties() {
-    Properties p = new Properties();
-    p.setProperty("epoch", Integer.toString(epoch));
-    p.setProperty("nextBatch", Integer.toString(nextBatch));
-    p.setProperty("bestValidationLoss", Double.toString(bestValidationLoss));
-    p.setProperty("epochsWithoutGain", Integer.toString(epochsWithoutGain));
-    p.setProperty("lastValidationLoss", Double.toString(lastValidationLoss));
-    p.setProperty("epochLossSum", Double.toString(epochLossSum));
-    p.setProperty("epochTokens", Long.toString(epochTokens));
-    p.setProperty("trainedTokens", Long.toString(trainedTokens));
-    p.setProperty("trainingMillis", Long.toString(trainingMillis));
-    p.setProperty("finished", Boolean.toString(finished));
-    p.setProperty("dataFingerprint", dataFingerprint);
-    p.setProperty("modelFile", modelFile);
-    p.setProperty("modelSha256", modelSha256);
-    p.setProperty("computeThreads", computeThreads);
-    StringWriter out = new StringWriter();
-    try {
-      p.store(out, "reranker training checkpoint");
-    } catch (IOException e) {
-      throw new IllegalStateException(e);
-    }
-    return out.toString();
+    return PropertiesRecords.text(this, "reranker training checkpoint");
   }
 
-  static TrainingState fromProperties(String text) throws IOException {
-    Properties p = new Properties();
-    p.load(new StringReader(text));
-    try {
-      return new TrainingState(Integer.parseInt(get(p, "epoch")), Integer.parseInt(get(p, "nextBatch")),
-          Double.parseDouble(get(p, "bestValidationLoss")), Integer.parseInt(get(p, "epochsWithoutGain")),
-          Double.parseDouble(get(p, "lastValidationLoss")), Double.parseDouble(get(p, "epochLossSum")),
-          Long.parseLong(get(p, "epochTokens")), Long.parseLong(get(p, "trainedTokens")),
-          Long.parseLong(get(p, "trainingMillis")), Boolean.parseBoolean(get(p, "finished")),
-          get(p, "dataFingerprint"), get(p, "modelFile"), get(p, "modelSha256"),
-          p.getProperty("computeThreads", ""));
-    } catch (NumberFormatException e) {
-      throw new IOException("checkpoint state has a bad number: " + e.getMessage(), e);
-    }
-  }
-
-  private static String get(Properties p, String key) throws IOException {
-    String v = p.getProperty(key);
-    if (v == null) {
-      throw new IOException("checkpoint state lacks '" + key + "'");
-    }
-    return v;
+  static TrainingState read(Path file) throws IOException {
+    Properties p = PropertiesRecords.load(file);
+    // Checkpoints written before the thread counts were recorded lack them (see the class comment).
+    p.putIfAbsent("computeThreads", "");
+    return PropertiesRecords.toRecord(p, TrainingState.class, file);
   }
 }

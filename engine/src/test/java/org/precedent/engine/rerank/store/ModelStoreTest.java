@@ -51,6 +51,48 @@ class ModelStoreTest {
   }
 
   @Test
+  void aConfigurationWrittenByTheFirstReleaseStillReads(@TempDir Path root) throws Exception {
+    // config.properties verbatim in the layout the first release wrote (java.util.Properties.store's
+    // header and hash order, then the anti-LM weight appended as one more line), with TinyData's sizes
+    // so the saved weights fit it. Read without the manifest check, which a changed file would fail.
+    String firstRelease = """
+        #reranker configuration
+        #Tue Nov 10 09:41:27 UTC 2026
+        maxQuestionTokens=48
+        validationShare=0.1
+        vocabCap=500
+        hidden=16
+        clipNorm=5.0
+        maxEpochs=25
+        patience=4
+        unconditionalShare=0.1
+        embedding=8
+        batchSize=8
+        maxAnswerTokens=48
+        minCount=1
+        learningRate=0.01
+        seed=42
+        antiLmLambda=0.35
+        """;
+    ModelStore store = new ModelStore(root);
+    Path dir = root.resolve(store.save(trained));
+    Files.writeString(dir.resolve(ModelStore.CONFIG), firstRelease);
+    RerankerModel loaded = ModelStore.read(dir);
+    assertEquals(TinyData.config(), loaded.config());
+    assertEquals(0.35, loaded.antiLmLambda());
+  }
+
+  @Test
+  void aTamperedConfigurationNamesTheFileAndTheField(@TempDir Path root) throws Exception {
+    ModelStore store = new ModelStore(root);
+    Path dir = root.resolve(store.save(trained));
+    Path config = dir.resolve(ModelStore.CONFIG);
+    Files.writeString(config, Files.readString(config).replace("hidden=16", "hidden=sixteen"));
+    ModelLoadException e = assertThrows(ModelLoadException.class, () -> ModelStore.read(dir));
+    assertTrue(e.getMessage().contains(config.toString()) && e.getMessage().contains("'hidden'"), e.getMessage());
+  }
+
+  @Test
   void eachSaveIsANewVersionAndActiveSwitches(@TempDir Path root) throws Exception {
     ModelStore store = new ModelStore(root);
     store.save(trained);

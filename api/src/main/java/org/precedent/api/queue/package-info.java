@@ -1,0 +1,12 @@
+/**
+ * The durable ticket queue: {@link org.precedent.api.queue.QueueController} accepts a ticket ({@code
+ * /api/v1/queue/tickets}) only once {@link org.precedent.api.queue.TicketQueue} has committed it, one
+ * {@link org.precedent.api.queue.QueueWorker} thread claims and decides queued tickets with a
+ * conditional update and stores each decision in the transaction that marks the ticket decided, a
+ * ticket that keeps failing ends as {@code FAILED} for a person, and {@link
+ * org.precedent.api.queue.QueueHealth} reports the worker. It depends on {@code api.system}, on {@code
+ * api.suggest} (the {@code Decider} and the decision's view, a sideways dependency the redesign means
+ * to remove), {@code knowledge.clean}, Spring (web, JDBC, transactions), Micrometer and Jackson;
+ * nothing depends on it.
+ */
+package org.precedent.api.queue;
