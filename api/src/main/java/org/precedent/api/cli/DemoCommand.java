@@ -157,7 +157,8 @@ final class DemoCommand implements Callable<Integer> {
           "demo held-out split", 0.95, dataDir.reports(), null,
           new Progress("evaluating", "tickets", System.err));
       EvaluateCommand.print(out, evaluation);
-      EvaluateCommand.applyThreshold(out, dataDir, active, evaluation);
+      EvaluateCommand.applyThreshold(out, dataDir, active, evaluation,
+          "the demo: guaranteed threshold of its held-out evaluation at target precision 0.95");
     }
 
     out.printf(Locale.ROOT, "%n[5] decisions for sample questions%n%n");

@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.precedent.api.threshold.ThresholdAudit;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.evaluate.EvaluationReport;
@@ -58,8 +59,13 @@ final class EvaluateCommand implements Callable<Integer> {
       description = "An earlier report to show changes against.")
   Path compareTo;
 
-  @Option(names = "--apply", description = "Put the fused system's guaranteed threshold in force.")
+  @Option(names = "--apply", description = "Put the fused system's guaranteed threshold in force "
+      + "(recorded in the threshold audit; refused while the service runs on the data directory).")
   boolean apply;
+
+  @Option(names = "--reason", paramLabel = "TEXT",
+      description = "Why, for the threshold audit (default: the evaluation it comes from).")
+  String reason;
 
   @Override
   public Integer call() throws Exception {
@@ -80,7 +86,9 @@ final class EvaluateCommand implements Callable<Integer> {
           new Progress("evaluating", "tickets", System.err));
       print(w, result);
       if (apply) {
-        applyThreshold(w, dataDir, active, result);
+        applyThreshold(w, dataDir, active, result, reason != null ? reason
+            : "guaranteed threshold of the evaluation " + result.json() + " at target precision "
+                + target);
       }
     }
     return 0;
@@ -88,11 +96,12 @@ final class EvaluateCommand implements Callable<Integer> {
 
   /** Puts the fused system's guaranteed threshold in force, when there is one. */
   static void applyThreshold(PrintWriter w, DataDir dataDir, InForce active,
-      HeldOutEvaluation result) throws java.io.IOException {
+      HeldOutEvaluation result, String reason) throws java.io.IOException {
     var threshold = result.guaranteedThreshold();
     if (threshold.isPresent()) {
-      InForce.writeThresholds(dataDir, new Thresholds(threshold.getAsDouble(),
-          active.thresholds().perCategory()));
+      ThresholdAudit.applyFromCommandLine(dataDir, new Thresholds(threshold.getAsDouble(),
+          active.thresholds().perCategory()), System.getProperty("user.name") + " (command line)",
+          reason);
       w.println("threshold " + ThresholdDecimals.of(threshold.getAsDouble())
           + " is now in force for automatic replies");
     } else {

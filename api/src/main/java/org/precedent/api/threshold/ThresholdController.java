@@ -76,8 +76,9 @@ class ThresholdController {
     audit.check("reason", reason, "threshold_change", "reason");
     Thresholds next = new Thresholds(change.global(), perCategory);
     int width = audit.width("threshold_change", "new_value");
-    if (describe(next).length() > width) {
-      throw new FieldProblem("perCategory", "these thresholds take " + describe(next).length()
+    String described = ThresholdAudit.describe(next);
+    if (described.length() > width) {
+      throw new FieldProblem("perCategory", "these thresholds take " + described.length()
           + " characters in the audit record, which keeps at most " + width
           + ": set fewer categories, or shorter names");
     }
@@ -86,13 +87,14 @@ class ThresholdController {
         db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, new_value, "
             + "reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
             // Set outside the service (evaluate --apply, by hand), the old ones may be longer.
-            abbreviate(describe(before), audit.width("threshold_change", "old_value")),
-            describe(after), reason));
+            ThresholdAudit.abbreviate(ThresholdAudit.describe(before),
+                audit.width("threshold_change", "old_value")),
+            ThresholdAudit.describe(after), reason));
     Map<String, Object> out = new LinkedHashMap<>();
     out.put("changedBy", who.getName());
     out.put("changedAt", at.toString());
-    out.put("old", describe(old));
-    out.put("new", describe(next));
+    out.put("old", ThresholdAudit.describe(old));
+    out.put("new", ThresholdAudit.describe(next));
     return out;
   }
 
@@ -121,24 +123,4 @@ class ThresholdController {
     return ReportFiles.readJson(latest);
   }
 
-  /** Every digit of each threshold, at least four decimals: the audit names the rule exactly. */
-  static String describe(Thresholds t) {
-    StringBuilder s = new StringBuilder("global=" + ThresholdDecimals.of(t.global(), 4));
-    new TreeMap<>(t.perCategory()).forEach((c, v) ->
-        s.append("; ").append(quoted(c)).append('=').append(ThresholdDecimals.of(v, 4)));
-    return s.toString();
-  }
-
-  /** A name that holds this record's own separators is quoted, so the record reads one way. */
-  private static String quoted(String category) {
-    if (category.indexOf(';') < 0 && category.indexOf('=') < 0 && category.indexOf('"') < 0) {
-      return category;
-    }
-    return '"' + category.replace("\\", "\\\\").replace("\"", "\\\"") + '"';
-  }
-
-  private static String abbreviate(String text, int width) {
-    String more = " ... (cut to fit the audit record)";
-    return text.length() <= width ? text : text.substring(0, width - more.length()) + more;
-  }
 }

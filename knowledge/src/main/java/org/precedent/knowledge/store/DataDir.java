@@ -71,6 +71,14 @@ public final class DataDir {
     return root.resolve("reports");
   }
 
+  /**
+   * The service's database, without H2's file ending ({@code .mv.db}); the service's settings
+   * ({@code precedent.service.dir}) name the same place by default.
+   */
+  public Path serviceDatabase() {
+    return root.resolve("service").resolve("precedent");
+  }
+
   /** The last evaluation's JSON report, which the manager's page reads. */
   public Path latestReport() {
     return reports().resolve("latest.json");

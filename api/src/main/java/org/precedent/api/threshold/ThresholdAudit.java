@@ -1,0 +1,102 @@
+package org.precedent.api.threshold;
+
+import java.io.IOException;
+import java.sql.Connection;
+import java.sql.DriverManager;
+import java.sql.PreparedStatement;
+import java.sql.SQLException;
+import java.sql.Timestamp;
+import java.time.Instant;
+import java.util.TreeMap;
+import org.precedent.engine.decide.InForce;
+import org.precedent.engine.decide.Thresholds;
+import org.precedent.engine.measure.ThresholdDecimals;
+import org.precedent.knowledge.store.DataDir;
+import org.springframework.core.io.ClassPathResource;
+import org.springframework.jdbc.datasource.init.ScriptUtils;
+
+/**
+ * The audit of threshold changes: one row per change (who, when, before, after, why) in the
+ * service's database, whichever door the change came through. The manager page's changes go
+ * through the service ({@link ThresholdController}); the command line's ({@code evaluate --apply},
+ * the demo) come here, and are refused while the service holds the database, so that no change
+ * is ever made behind the audit's back.
+ */
+public final class ThresholdAudit {
+  /** H2's DATABASE_ALREADY_OPEN_1 (org.h2.api.ErrorCode): another process holds the file. */
+  private static final int DATABASE_ALREADY_OPEN = 90020;
+  private static final String INSERT = "INSERT INTO threshold_change (changed_by, changed_at, "
+      + "old_value, new_value, reason) VALUES (?, ?, ?, ?, ?)";
+
+  private ThresholdAudit() {}
+
+  /**
+   * Puts {@code next} in force in {@code dir} and records the change in the service's database:
+   * the row is written in a transaction that commits only once the thresholds file is in place,
+   * and the file is restored if the commit fails.
+   *
+   * @param who    who made the change, as the audit shows it
+   * @param reason why, as the audit shows it
+   * @throws IOException when the database cannot be opened (the service running on the same data
+   *                     directory, or a damaged file) or written; nothing is changed then
+   */
+  public static void applyFromCommandLine(DataDir dir, Thresholds next, String who,
+      String reason) throws IOException {
+    Thresholds old = InForce.readThresholds(dir);
+    String url = "jdbc:h2:file:" + dir.serviceDatabase() + ";WRITE_DELAY=0";
+    try (Connection c = DriverManager.getConnection(url, "sa", "")) {
+      createTables(c);
+      c.setAutoCommit(false);
+      try (PreparedStatement insert = c.prepareStatement(INSERT)) {
+        insert.setString(1, who);
+        insert.setTimestamp(2, Timestamp.from(Instant.now()));
+        insert.setString(3, abbreviate(describe(old), 4000));
+        insert.setString(4, abbreviate(describe(next), 4000));
+        insert.setString(5, abbreviate(reason, 2000));
+        insert.executeUpdate();
+      }
+      InForce.writeThresholds(dir, next);
+      try {
+        c.commit();
+      } catch (SQLException e) {
+        InForce.writeThresholds(dir, old);
+        throw e;
+      }
+    } catch (SQLException | org.springframework.dao.DataAccessException e) {
+      if (e instanceof SQLException sql && sql.getErrorCode() == DATABASE_ALREADY_OPEN) {
+        throw new IOException("the service is running on " + dir.root() + " (its database "
+            + dir.serviceDatabase() + ".mv.db is in use): change the threshold on its manager "
+            + "page, or stop it first; the threshold in force is unchanged", e);
+      }
+      throw new IOException(dir.serviceDatabase() + ".mv.db: the threshold change could not be "
+          + "recorded (" + e.getMessage() + "); the threshold in force is unchanged", e);
+    }
+  }
+
+  /** The service's own schema, so that a change made before the service ever ran is kept too. */
+  private static void createTables(Connection c) {
+    // Spring's script reader, as the service's own start uses: it knows SQL comments.
+    ScriptUtils.executeSqlScript(c, new ClassPathResource("schema.sql"));
+  }
+
+  /** Every digit of each threshold, at least four decimals: the audit names the rule exactly. */
+  static String describe(Thresholds t) {
+    StringBuilder s = new StringBuilder("global=" + ThresholdDecimals.of(t.global(), 4));
+    new TreeMap<>(t.perCategory()).forEach((c, v) ->
+        s.append("; ").append(quoted(c)).append('=').append(ThresholdDecimals.of(v, 4)));
+    return s.toString();
+  }
+
+  /** A name that holds this record's own separators is quoted, so the record reads one way. */
+  private static String quoted(String category) {
+    if (category.indexOf(';') < 0 && category.indexOf('=') < 0 && category.indexOf('"') < 0) {
+      return category;
+    }
+    return '"' + category.replace("\\", "\\\\").replace("\"", "\\\"") + '"';
+  }
+
+  static String abbreviate(String text, int width) {
+    String more = " ... (cut to fit the audit record)";
+    return text.length() <= width ? text : text.substring(0, width - more.length()) + more;
+  }
+}
