@@ -53,7 +53,8 @@ public record EvaluatedTicket(String ticketId, String category, boolean inScope,
     return inScope && rankOfRight == 1;
   }
 
-  ScoredAnswer scored() {
+  /** The ticket as the measures see it: the confidence, and whether the top answer was right. */
+  public ScoredAnswer scored() {
     return new ScoredAnswer(confidence, replyRight());
   }
 

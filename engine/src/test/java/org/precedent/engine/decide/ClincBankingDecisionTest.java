@@ -19,6 +19,8 @@ import org.precedent.engine.evaluate.SystemRun;
 import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
+import org.precedent.engine.measure.Calibration;
+import org.precedent.engine.measure.ScoredAnswer;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.engine.rerank.ClincDomain;
@@ -94,13 +96,34 @@ class ClincBankingDecisionTest {
       }
       var bm25 = report.systems().get(0).measures();
       var fused = report.systems().get(2).measures();
-      // Floors: fused top-1 must beat BM25's (the point of the reranker and fusion); calibration
-      // error within 0.08 on 750 questions (ECE's own sampling noise at this size is a few
-      // points; the product target of 0.05 is reported, not asserted, here).
+      // Fused top-1 must beat BM25's: that is the point of the reranker and fusion.
       assertTrue(fused.top1() > bm25.top1(), "fused " + fused.top1() + " vs BM25 " + bm25.top1());
-      assertTrue(fused.expectedCalibrationError() <= 0.08, "ECE " + fused.expectedCalibrationError());
+      // Calibration, bounded by its own sampling noise rather than by a figure seen once: the
+      // ECE a perfectly calibrated model would show on these very confidences, found by drawing
+      // each outcome from its own confidence ("consistency resampling", Broecker and Smith 2007),
+      // 95th percentile of 1,000 draws. The fused ECE may exceed that noise by at most 0.05, the
+      // product's calibration target (DEVELOPERS.md).
+      List<ScoredAnswer> scored = runs.get(2).tickets().stream().map(t -> t.scored()).toList();
+      double noise = consistencyNoise(scored, 1000, 0.95);
+      System.out.printf(Locale.ROOT, "fused ECE %.3f; 95%% of a calibrated model's ECE on these "
+          + "confidences is below %.3f%n", fused.expectedCalibrationError(), noise);
+      assertTrue(fused.expectedCalibrationError() <= noise + 0.05,
+          "ECE " + fused.expectedCalibrationError() + " against noise " + noise);
       assertTrue(fused.coverageAt95() >= bm25.coverageAt95(), "coverage at 95% precision");
     }
+  }
+
+  /** The {@code quantile} of ECE over {@code draws} outcome sets drawn from the confidences. */
+  static double consistencyNoise(List<ScoredAnswer> scored, int draws, double quantile) {
+    java.util.Random random = new java.util.Random(20071); // fixed seed: the bound is reproducible
+    double[] ece = new double[draws];
+    for (int d = 0; d < draws; d++) {
+      List<ScoredAnswer> drawn = scored.stream().map(a -> new ScoredAnswer(a.confidence(),
+          random.nextDouble() < a.confidence())).toList();
+      ece[d] = Calibration.expectedCalibrationError(drawn);
+    }
+    java.util.Arrays.sort(ece);
+    return ece[(int) Math.ceil(quantile * draws) - 1];
   }
 
   private static String clean(String q) {
