@@ -69,12 +69,26 @@ final class ServiceBenchmark implements Callable<Integer> {
       description = "API key of an agent on the service at --url (default ${DEFAULT-VALUE}).")
   String key;
 
+  @Option(names = "--runs", paramLabel = "N", defaultValue = "1",
+      description = "Measured runs one after another, each of --seconds (default "
+          + "${DEFAULT-VALUE}); with --pid, or on a service started here, the service's resident "
+          + "memory is shown before the first and after each, so growth under load shows.")
+  int runs;
+
+  @Option(names = "--pid", paramLabel = "PID",
+      description = "Process id of the service at --url, whose resident memory to show (Linux).")
+  Long pid;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    if (clients < 1 || seconds < 1) {
+    if (clients < 1 || seconds < 1 || runs < 1) {
       throw new picocli.CommandLine.ParameterException(spec.commandLine(),
-          "--clients and --seconds must be at least 1");
+          "--clients, --seconds and --runs must be at least 1");
+    }
+    if (pid != null && url == null) {
+      throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+          "--pid names the process of the service at --url; without --url the service runs here");
     }
     if (url != null && guessers > 0) {
       throw new picocli.CommandLine.ParameterException(spec.commandLine(),
@@ -105,34 +119,54 @@ final class ServiceBenchmark implements Callable<Integer> {
       }
       HttpClient http = HttpClient.newBuilder().connectTimeout(Duration.ofSeconds(5)).build();
       drive(http, uri, apiKey, bodies, 5);
-      SignInBenchmark.Guessing guessing = signIn == null ? null : signIn.guess(guessers,
-          System.nanoTime() + seconds * 1_000_000_000L);
-      Tally r = drive(http, uri, apiKey, bodies, seconds);
-      long[] ok = sorted(r.ok());
-      long[] refused = sorted(r.refused());
-      long answered = ok.length + refused.length + r.errors();
-      out.printf(Locale.ROOT, "machine: %d cores; %d clients for %d s over loopback%n",
-          Runtime.getRuntime().availableProcessors(), clients, seconds);
-      out.printf(Locale.ROOT, "decisions: %,d ok, %.1f per second; p50 %.1f ms, p99 %.1f ms, "
-              + "max %.1f ms%n", ok.length, ok.length / (double) seconds,
-          percentile(ok, 0.50) / 1e6, percentile(ok, 0.99) / 1e6,
-          ok.length == 0 ? 0 : ok[ok.length - 1] / 1e6);
-      out.printf(Locale.ROOT, "refused as busy (503/429): %,d, %.1f%% of requests; p50 %.1f ms, "
-              + "p99 %.1f ms to the refusal%n", refused.length,
-          answered == 0 ? 0 : 100.0 * refused.length / answered, percentile(refused, 0.50) / 1e6,
-          percentile(refused, 0.99) / 1e6);
-      out.printf(Locale.ROOT, "errors: %,d (other statuses, time-outs, broken connections)%n",
-          r.errors());
+      // A service started here shares this process with the clients: its figure includes them.
+      long service = pid != null ? pid : url == null ? ProcessHandle.current().pid() : -1;
+      out.printf(Locale.ROOT, "machine: %d cores; %d clients for %d s over loopback%s%n",
+          Runtime.getRuntime().availableProcessors(), clients, seconds,
+          runs > 1 ? ", " + runs + " runs" : "");
+      Resident.print(out, service, "after the warm-up");
+      long errors = 0;
+      for (int run = 1; run <= runs; run++) {
+        errors += measure(out, http, uri, apiKey, bodies, signIn, run);
+        Resident.print(out, service, "after run " + run);
+      }
       if (signIn != null) {
-        guessing.report(out);
         signIn.failureLatency(out, 100);
       }
-      return r.errors() == 0 ? 0 : PrecedentCommand.FAILED;
+      return errors == 0 ? 0 : PrecedentCommand.FAILED;
     } finally {
       if (context != null) {
         context.close();
       }
     }
+  }
+
+  /** One measured run; prints its figures and returns its count of errors. */
+  private long measure(PrintWriter out, HttpClient http, URI uri, String apiKey,
+    List<String> bodies, SignInBenchmark signIn, int run) throws Exception {
+    SignInBenchmark.Guessing guessing = signIn == null ? null : signIn.guess(guessers,
+        System.nanoTime() + seconds * 1_000_000_000L);
+    Tally r = drive(http, uri, apiKey, bodies, seconds);
+    long[] ok = sorted(r.ok());
+    long[] refused = sorted(r.refused());
+    long answered = ok.length + refused.length + r.errors();
+    if (runs > 1) {
+      out.printf(Locale.ROOT, "run %d:%n", run);
+    }
+    out.printf(Locale.ROOT, "decisions: %,d ok, %.1f per second; p50 %.1f ms, p99 %.1f ms, "
+            + "max %.1f ms%n", ok.length, ok.length / (double) seconds,
+        percentile(ok, 0.50) / 1e6, percentile(ok, 0.99) / 1e6,
+        ok.length == 0 ? 0 : ok[ok.length - 1] / 1e6);
+    out.printf(Locale.ROOT, "refused as busy (503/429): %,d, %.1f%% of requests; p50 %.1f ms, "
+            + "p99 %.1f ms to the refusal%n", refused.length,
+        answered == 0 ? 0 : 100.0 * refused.length / answered, percentile(refused, 0.50) / 1e6,
+        percentile(refused, 0.99) / 1e6);
+    out.printf(Locale.ROOT, "errors: %,d (other statuses, time-outs, broken connections)%n",
+        r.errors());
+    if (guessing != null) {
+      guessing.report(out);
+    }
+    return r.errors();
   }
 
   /** What the clients saw: times of decisions, times of refusals, and the count of errors. */

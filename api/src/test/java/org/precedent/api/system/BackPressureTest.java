@@ -139,7 +139,8 @@ class BackPressureTest {
     StringWriter out = new StringWriter();
     StringWriter err = new StringWriter();
     int status = PrecedentCommand.run(new PrintWriter(out, true), new PrintWriter(err, true),
-        "benchmark", "service", "--url", http().base(), "--clients", "8", "--seconds", "2");
+        "benchmark", "service", "--url", http().base(), "--clients", "8", "--seconds", "2",
+        "--runs", "2", "--pid", Long.toString(ProcessHandle.current().pid()));
     // Refusals are the service protecting itself, not failures: the run succeeds.
     assertEquals(0, status, out + "\n" + err);
     Matcher refused = Pattern.compile("refused as busy \\(503/429\\): ([0-9,]+)")
@@ -147,6 +148,12 @@ class BackPressureTest {
     assertTrue(refused.find(), out.toString());
     assertTrue(Integer.parseInt(refused.group(1).replace(",", "")) > 0, out.toString());
     assertTrue(out.toString().contains("errors: 0 "), out.toString());
+    // The service runs in this process: its resident memory is shown before and after each run.
+    for (String when : List.of("after the warm-up", "after run 1", "after run 2")) {
+      assertTrue(Pattern.compile("service resident [0-9,]+ MB \\(peak [0-9,]+ MB\\) " + when)
+          .matcher(out.toString()).find(), when + " in: " + out);
+    }
+    assertTrue(out.toString().contains("run 2:"), out.toString());
   }
 
   /** The first measurement of a metric (a count, for a timer). */
