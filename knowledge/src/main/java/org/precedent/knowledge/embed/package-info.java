@@ -6,6 +6,7 @@
  * of the model file) so a stored generation can later record which encoder made its vectors. {@link
  * org.precedent.knowledge.embed.NativeLibraries} decides where the two native libraries are unpacked.
  * The package depends on ONNX Runtime, DJL's tokenizers and {@code knowledge.io}; nothing else of
- * Precedent depends on it yet (the dense retrieval leg is the next step).
+ * Precedent depends on it yet but the {@code benchmark encoder} command (the dense retrieval leg is
+ * the next step).
  */
 package org.precedent.knowledge.embed;
