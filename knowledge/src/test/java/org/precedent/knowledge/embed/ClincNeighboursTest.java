@@ -10,6 +10,7 @@ import java.util.Set;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.precedent.knowledge.testdata.Clinc150;
 
@@ -21,12 +22,38 @@ class ClincNeighboursTest {
   /** Neighbours in the vote: common practice for kNN over sentence embeddings, not tuned here. */
   private static final int K = 10;
 
+  /** Accuracy of the nearest neighbour and of the cosine-weighted vote of the K nearest. */
+  record Accuracy(double nearest, double vote) {}
+
   @Test
   void bankingNeighbourVoteBeatsBm25() throws Exception {
     Clinc150 clinc = Clinc150.load();
-    Set<String> banking = clinc.intents("banking");
-    List<Clinc150.Example> train = clinc.split("train", banking);
-    List<Clinc150.Example> test = clinc.split("test", banking);
+    Accuracy a = classify(clinc, "banking", clinc.intents("banking"));
+    // BM25 top-1 on the same split is 0.860 (ClincRecallTest, DEVELOPERS.md); issue 8's probe
+    // measured a 93.1% kNN vote with this encoder on another intent dataset. Measured here: vote
+    // 0.960, 1-NN 0.942. Floors three points lower (about two standard errors on 450 questions,
+    // sqrt(0.96 * 0.04 / 450) = 0.009, plus room for another ONNX Runtime build), which is still
+    // seven points above BM25: an encoder no better than BM25 here fails.
+    assertTrue(a.vote() >= 0.93, "kNN vote accuracy " + a);
+    assertTrue(a.nearest() >= 0.91, "1-NN accuracy " + a);
+  }
+
+  @Test
+  @Tag("slow")
+  void allInScopeIntentsNeighbourVoteBeatsBm25() throws Exception {
+    Clinc150 clinc = Clinc150.load();
+    Accuracy a = classify(clinc, "in-scope", null);
+    // Larson et al. 2019, Table 2 (full, in-scope accuracy): BERT fine-tuned 96.2; issue 8 measured
+    // BM25 top-1 0.755 on the same split. Measured here: vote 0.930, 1-NN 0.915 (about 2 minutes
+    // on 2 shared cores, hence "slow"). Floor 0.90: three points under the vote (its standard error
+    // on 4,500 questions is 0.004) and fourteen above BM25.
+    assertTrue(a.vote() >= 0.90, "kNN vote accuracy " + a);
+  }
+
+  private static Accuracy classify(Clinc150 clinc, String name, Set<String> intents)
+      throws Exception {
+    List<Clinc150.Example> train = clinc.split("train", intents);
+    List<Clinc150.Example> test = clinc.split("test", intents);
     try (SentenceEncoder encoder = SentenceEncoder.open()) {
       long start = System.nanoTime();
       List<float[]> trainV = embed(encoder, train);
@@ -45,18 +72,11 @@ class ClincNeighboursTest {
         String best = votes.entrySet().stream().max(Map.Entry.comparingByValue()).get().getKey();
         rightK += best.equals(gold) ? 1 : 0;
       }
-      double acc1 = (double) right1 / test.size();
-      double accK = (double) rightK / test.size();
-      System.out.printf("CLINC150 banking test (%d questions, %d train): 1-NN %.3f, %d-NN cosine"
-          + " vote %.3f; %.1f ms of wall time per text on 2 threads%n", test.size(), train.size(),
-          acc1, K, accK, ms);
-      // BM25 top-1 on the same split is 0.860 (ClincRecallTest, DEVELOPERS.md); issue 8's probe
-      // measured a 93.1% kNN vote with this encoder on another intent dataset. Measured here: vote
-      // 0.960, 1-NN 0.942. Floors three points lower (about two standard errors on 450 questions,
-      // sqrt(0.96 * 0.04 / 450) = 0.009, plus room for another ONNX Runtime build), which is still
-      // seven points above BM25: an encoder no better than BM25 here fails.
-      assertTrue(accK >= 0.93, "kNN vote accuracy " + accK);
-      assertTrue(acc1 >= 0.91, "1-NN accuracy " + acc1);
+      Accuracy a = new Accuracy((double) right1 / test.size(), (double) rightK / test.size());
+      System.out.printf("CLINC150 %s test (%d questions, %d train): 1-NN %.3f, %d-NN cosine vote"
+          + " %.3f; %.1f ms of wall time per text on 2 threads, %.1f s in all%n", name, test.size(),
+          train.size(), a.nearest(), K, a.vote(), ms, (System.nanoTime() - start) / 1e9);
+      return a;
     }
   }
 
