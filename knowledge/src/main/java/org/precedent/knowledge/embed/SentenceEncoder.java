@@ -193,7 +193,7 @@ public final class SentenceEncoder implements AutoCloseable {
    */
   private static String check(String text, int index) {
     if (text == null) {
-      throw new IllegalArgumentException("text " + index + " to embed is null");
+      throw new IllegalArgumentException("text " + index + " of those to embed is null");
     }
     StringBuilder fixed = null;
     for (int i = 0; i < text.length(); i++) {

@@ -3,15 +3,21 @@ package org.precedent.knowledge.embed;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.BufferedReader;
 import java.io.InputStreamReader;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
 import org.junit.jupiter.api.AfterAll;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -103,6 +109,29 @@ class SentenceEncoderTest {
   }
 
   @Test
+  void callsFromSeveralThreadsGiveTheVectorsOfOneThread() throws Exception {
+    // ONNX Runtime documents a session's run as safe to call concurrently; the encoder relies on
+    // that (and on the tokenizer's encode) instead of a lock, so check it gives the same bits.
+    List<String> texts = references().stream().map(Reference::text).toList();
+    List<float[]> alone = encoder.embedAll(texts);
+    ExecutorService pool = Executors.newFixedThreadPool(4);
+    try {
+      List<Future<List<float[]>>> runs = new ArrayList<>();
+      for (int r = 0; r < 8; r++) {
+        runs.add(pool.submit(() -> encoder.embedAll(texts)));
+      }
+      for (Future<List<float[]>> run : runs) {
+        List<float[]> got = run.get();
+        for (int i = 0; i < texts.size(); i++) {
+          assertTrue(Arrays.equals(alone.get(i), got.get(i)), texts.get(i));
+        }
+      }
+    } finally {
+      pool.shutdown();
+    }
+  }
+
+  @Test
   void namesItsModelAndDimension() {
     assertEquals(384, encoder.dimension(), "bge-small-en-v1.5 config.json hidden_size");
     assertEquals("bge-small-en-v1.5-q", encoder.identity().model());
@@ -115,11 +144,11 @@ class SentenceEncoderTest {
     // layout is ONNX Runtime's own (ai/onnxruntime/native/PLATFORM/ in its jar, loaded from the
     // folder its documented property onnxruntime.native.path names) and DJL's cache layout.
     String dir = System.getProperty(NativeLibraries.PROPERTY);
-    org.junit.jupiter.api.Assumptions.assumeTrue(dir != null, "run without " + NativeLibraries.PROPERTY);
-    java.nio.file.Path ort = java.nio.file.Path.of(System.getProperty("onnxruntime.native.path"));
-    assertEquals(java.nio.file.Path.of(dir).toAbsolutePath(), ort.getParent());
-    assertTrue(java.nio.file.Files.isRegularFile(ort.resolve(System.mapLibraryName("onnxruntime"))));
-    assertEquals(java.nio.file.Path.of(dir, "djl").toAbsolutePath().toString(),
+    assumeTrue(dir != null, "run without " + NativeLibraries.PROPERTY);
+    Path ort = Path.of(System.getProperty("onnxruntime.native.path"));
+    assertEquals(Path.of(dir).toAbsolutePath(), ort.getParent());
+    assertTrue(Files.isRegularFile(ort.resolve(System.mapLibraryName("onnxruntime"))));
+    assertEquals(Path.of(dir, "djl").toAbsolutePath().toString(),
         System.getProperty("DJL_CACHE_DIR"));
   }
 
