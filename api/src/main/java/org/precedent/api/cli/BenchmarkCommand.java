@@ -8,6 +8,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "benchmark", mixinStandardHelpOptions = true,
     description = "Measures Precedent's speed and prints the figures.",
     subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class,
+        EncoderBenchmark.class,
         ClincBenchmark.class, ServiceBenchmark.class, FiguresCommand.class})
 final class BenchmarkCommand implements Callable<Integer> {
   @picocli.CommandLine.ParentCommand

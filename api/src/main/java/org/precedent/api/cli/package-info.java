@@ -1,7 +1,7 @@
 /**
  * The {@code precedent} command line (picocli): {@link org.precedent.api.cli.PrecedentCommand} and one
  * sub-command per job ({@code ingest}, {@code ask}, {@code train}, {@code evaluate}, {@code triage},
- * {@code serve}, {@code demo}, and {@code benchmark} with its retrieval, reranker, CLINC150, service
+ * {@code serve}, {@code demo}, and {@code benchmark} with its retrieval, reranker, encoder, CLINC150, service
  * (sign-ins included) and figures runs), and the printers of their output. Errors reach the person as
  * one line saying what and where ({@link org.precedent.api.cli.Messages}). As the outermost layer it
  * may depend on every package below it (the knowledge and engine packages, {@code api.system} to
