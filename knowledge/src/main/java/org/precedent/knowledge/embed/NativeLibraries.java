@@ -17,7 +17,8 @@ import org.precedent.knowledge.io.AtomicFiles;
  * <ul>
  *   <li>ONNX Runtime ({@code ai.onnxruntime.OnnxRuntime}) copies {@code libonnxruntime} and {@code
  *       libonnxruntime4j_jni} into a fresh {@code onnxruntime-java*} folder under {@code
- *       java.io.tmpdir} (usually {@code /tmp}) on every start, deleted at exit; with the system
+ *       java.io.tmpdir} (usually {@code /tmp}) on every start, its files deleted at exit and the
+ *       empty folder left (seen on this project's machine, ONNX Runtime 1.23.2); with the system
  *       property {@code onnxruntime.native.path} set it loads them from that folder instead and
  *       unpacks nothing.
  *   <li>DJL's tokenizers ({@code ai.djl.huggingface.tokenizers.jni.LibUtils}) copy {@code
