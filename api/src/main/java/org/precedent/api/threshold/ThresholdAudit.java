@@ -11,6 +11,7 @@ import java.util.TreeMap;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.measure.ThresholdDecimals;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
 import org.springframework.core.io.ClassPathResource;
 import org.springframework.jdbc.datasource.init.ScriptUtils;
@@ -43,6 +44,8 @@ public final class ThresholdAudit {
   public static void applyFromCommandLine(DataDir dir, Thresholds next, String who,
       String reason) throws IOException {
     Thresholds old = InForce.readThresholds(dir);
+    // The database holds the audit: private to its owner from the start, as the service keeps it.
+    AtomicFiles.createPrivateDirectories(dir.serviceDatabase().getParent());
     String url = "jdbc:h2:file:" + dir.serviceDatabase() + ";WRITE_DELAY=0";
     try (Connection c = DriverManager.getConnection(url, "sa", "")) {
       createTables(c);
@@ -71,6 +74,7 @@ public final class ThresholdAudit {
       throw new IOException(dir.serviceDatabase() + ".mv.db: the threshold change could not be "
           + "recorded (" + e.getMessage() + "); the threshold in force is unchanged", e);
     }
+    AtomicFiles.makePrivate(dir.serviceDatabase().getParent());
   }
 
   /** The service's own schema, so that a change made before the service ever ran is kept too. */

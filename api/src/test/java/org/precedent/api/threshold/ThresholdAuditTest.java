@@ -54,6 +54,13 @@ class ThresholdAuditTest {
             + "of May",
         "sam (command line) | global=0.9300; billing=0.9900 | global=0.9000 | billing is fine now"),
         rows(dir));
+    // The audit sits with customers' data: owner-only, as the service keeps its files.
+    if (Files.getFileStore(tmp).supportsFileAttributeView("posix")) {
+      assertEquals("rwx------", java.nio.file.attribute.PosixFilePermissions.toString(
+          Files.getPosixFilePermissions(dir.serviceDatabase().getParent())));
+      assertEquals("rw-------", java.nio.file.attribute.PosixFilePermissions.toString(
+          Files.getPosixFilePermissions(Path.of(dir.serviceDatabase() + ".mv.db"))));
+    }
   }
 
   @Test
