@@ -18,7 +18,8 @@ public final class AuditColumns {
   private final JdbcTemplate db;
   private final Map<String, Integer> widths = new ConcurrentHashMap<>();
 
-  AuditColumns(JdbcTemplate db) {
+  /** Over the service's database; the command line's door makes one over its own connection. */
+  public AuditColumns(JdbcTemplate db) {
     this.db = db;
   }
 

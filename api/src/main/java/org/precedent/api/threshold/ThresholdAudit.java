@@ -8,12 +8,15 @@ import java.sql.SQLException;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.TreeMap;
+import org.precedent.api.system.AuditColumns;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
 import org.springframework.core.io.ClassPathResource;
+import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.jdbc.datasource.SingleConnectionDataSource;
 import org.springframework.jdbc.datasource.init.ScriptUtils;
 
 /**
@@ -49,13 +52,26 @@ public final class ThresholdAudit {
     String url = "jdbc:h2:file:" + dir.serviceDatabase() + ";WRITE_DELAY=0";
     try (Connection c = DriverManager.getConnection(url, "sa", "")) {
       createTables(c);
+      // The column widths as schema.sql sets them, read from the database as the service does.
+      AuditColumns audit = new AuditColumns(new JdbcTemplate(new SingleConnectionDataSource(c,
+          true)));
+      int reasonWidth = audit.width("threshold_change", "reason");
+      if (reason.length() > reasonWidth) {
+        throw new IOException("--reason: at most " + reasonWidth + " characters (the audit "
+            + "record keeps no more), got " + reason.length() + "; the threshold in force is "
+            + "unchanged");
+      }
       c.setAutoCommit(false);
       try (PreparedStatement insert = c.prepareStatement(INSERT)) {
         insert.setString(1, who);
         insert.setTimestamp(2, Timestamp.from(Instant.now()));
-        insert.setString(3, abbreviate(describe(old), 4000));
-        insert.setString(4, abbreviate(describe(next), 4000));
-        insert.setString(5, abbreviate(reason, 2000));
+        // Set by hand or by an earlier release, the old thresholds may be longer: cut, as the
+        // service cuts them; the new ones are the old categories with a new global value.
+        insert.setString(3, abbreviate(describe(old), audit.width("threshold_change",
+            "old_value")));
+        insert.setString(4, abbreviate(describe(next), audit.width("threshold_change",
+            "new_value")));
+        insert.setString(5, reason);
         insert.executeUpdate();
       }
       InForce.writeThresholds(dir, next);

@@ -75,4 +75,15 @@ class ThresholdAuditTest {
     assertEquals(Thresholds.global(InForce.DEFAULT_THRESHOLD), InForce.readThresholds(dir));
     assertTrue(Files.notExists(dir.thresholds()), "no thresholds file was written");
   }
+
+  @Test
+  void aReasonLongerThanTheAuditKeepsIsRefusedAndNothingChanges() throws Exception {
+    DataDir dir = new DataDir(tmp.resolve("data"));
+    // schema.sql gives the reason 2,000 characters; the width is read from the database.
+    IOException e = assertThrows(IOException.class, () -> ThresholdAudit.applyFromCommandLine(
+        dir, Thresholds.global(0.5), "sam", "x".repeat(2001)));
+    assertTrue(e.getMessage().contains("at most 2000 characters"), e.getMessage());
+    assertTrue(Files.notExists(dir.thresholds()), "no thresholds file was written");
+    assertEquals(List.of(), rows(dir));
+  }
 }

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Objects;
+import java.util.Optional;
 
 /**
  * Why a decision or a score came out as it did, as a tree of named contributions: each node has a
@@ -43,9 +44,9 @@ public record Explanation(String name, Double value, String detail, List<Explana
   }
 
   /** The first part with this name, searching depth first. */
-  public java.util.Optional<Explanation> find(String partName) {
+  public Optional<Explanation> find(String partName) {
     if (name.equals(partName)) {
-      return java.util.Optional.of(this);
+      return Optional.of(this);
     }
     for (Explanation p : parts) {
       var found = p.find(partName);
@@ -53,6 +54,6 @@ public record Explanation(String name, Double value, String detail, List<Explana
         return found;
       }
     }
-    return java.util.Optional.empty();
+    return Optional.empty();
   }
 }

@@ -44,6 +44,14 @@ public record OwnDetails(Set<String> phones, Set<String> emails) {
     return !emails.isEmpty() && emails.contains(email.toLowerCase(Locale.ROOT));
   }
 
+  /**
+   * The form two contact details are compared in: an e-mail address in lower case, a phone number
+   * by its digits alone, so that {@code 01632 960999} and {@code 01632-960-999} are one number.
+   */
+  public static String key(String written) {
+    return written.indexOf('@') >= 0 ? written.toLowerCase(Locale.ROOT) : digits(written);
+  }
+
   /** Whether nothing is kept. */
   public boolean isEmpty() {
     return phones.isEmpty() && emails.isEmpty();

@@ -9,7 +9,6 @@ import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Optional;
@@ -99,7 +98,7 @@ public final class Ingestor {
           for (String c : TextCleaner.contactsIn(rawReply)) {
             // A detail still in the cleaned reply was kept as the organisation's own already.
             if (!t.reply().contains(c)) {
-              contacts.computeIfAbsent(Contact.key(c), k -> new Contact(c)).tickets.add(t.id());
+              contacts.computeIfAbsent(OwnDetails.key(c), k -> new Contact(c)).tickets.add(t.id());
             }
           }
         }
@@ -125,12 +124,6 @@ public final class Ingestor {
 
     Contact(String written) {
       this.written = written;
-    }
-
-    /** E-mail addresses ignoring case, phone numbers by their digits, as {@link OwnDetails}. */
-    static String key(String written) {
-      return written.indexOf('@') >= 0 ? written.toLowerCase(Locale.ROOT)
-          : written.replaceAll("[^0-9]", "");
     }
   }
 
