@@ -5,7 +5,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.precedent.api.demo.DemoTicketGenerator;
+import org.precedent.demo.DemoTicketGenerator;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.embed.SentenceEncoder;
 import picocli.CommandLine.Command;

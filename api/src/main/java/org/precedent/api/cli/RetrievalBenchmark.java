@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.precedent.api.demo.DemoTicketGenerator;
+import org.precedent.demo.DemoTicketGenerator;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;

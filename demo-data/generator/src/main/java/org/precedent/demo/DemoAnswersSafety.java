@@ -1,7 +1,7 @@
-package org.precedent.api.demo;
+package org.precedent.demo;
 
-import static org.precedent.api.demo.DemoAnswer.Season.ANY;
-import static org.precedent.api.demo.DemoAnswer.Season.WINTER;
+import static org.precedent.demo.DemoAnswer.Season.ANY;
+import static org.precedent.demo.DemoAnswer.Season.WINTER;
 
 import java.util.List;
 

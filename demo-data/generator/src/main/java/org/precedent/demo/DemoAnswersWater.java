@@ -1,8 +1,8 @@
-package org.precedent.api.demo;
+package org.precedent.demo;
 
-import static org.precedent.api.demo.DemoAnswer.Season.ANY;
-import static org.precedent.api.demo.DemoAnswer.Season.SUMMER;
-import static org.precedent.api.demo.DemoAnswer.Season.WINTER;
+import static org.precedent.demo.DemoAnswer.Season.ANY;
+import static org.precedent.demo.DemoAnswer.Season.SUMMER;
+import static org.precedent.demo.DemoAnswer.Season.WINTER;
 
 import java.util.List;
 

@@ -1,4 +1,4 @@
-package org.precedent.api.demo;
+package org.precedent.demo;
 
 /**
  * One generated demo ticket, as written to the demo CSV files.

@@ -1,4 +1,4 @@
-package org.precedent.api.demo;
+package org.precedent.demo;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;

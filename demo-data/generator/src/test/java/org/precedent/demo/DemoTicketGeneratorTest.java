@@ -1,4 +1,4 @@
-package org.precedent.api.demo;
+package org.precedent.demo;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
