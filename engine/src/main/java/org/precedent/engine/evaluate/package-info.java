@@ -17,8 +17,10 @@
  * <p>{@link org.precedent.engine.evaluate.HeldOutRuns} asks the held-out questions of each system
  * through the pipeline a decision uses (its candidates, ranking and gate); {@link
  * org.precedent.engine.evaluate.HeldOutEvaluation} labels held-out tickets with their truth, runs
- * them and writes the reports where the data directory says. The package depends on {@code
- * engine.measure}, {@code engine.decide}, {@code engine.candidates}, {@code engine.fusion}, {@code
+ * them and writes the reports where the data directory says; {@link
+ * org.precedent.engine.evaluate.ClincEvaluation} runs the open CLINC150 benchmark the same way,
+ * training on its train split. The package depends on {@code engine.measure}, {@code engine.decide},
+ * {@code engine.learn}, {@code knowledge.datasets}, {@code engine.candidates}, {@code engine.fusion}, {@code
  * knowledge.ingest}, {@code knowledge.group}, {@code knowledge.store}, {@code knowledge.io} and
  * Jackson; the figures, the command line and the service's threshold page depend on it.
  */

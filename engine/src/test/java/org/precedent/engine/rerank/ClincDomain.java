@@ -1,60 +1,36 @@
 package org.precedent.engine.rerank;
 
-import static org.junit.jupiter.api.Assertions.assertTrue;
-
-import com.fasterxml.jackson.core.type.TypeReference;
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.Map;
 import java.util.Set;
+import org.precedent.knowledge.datasets.Clinc150;
 
 /**
  * One domain of CLINC150 (Larson et al. 2019, "An Evaluation Dataset for Intent Classification and
- * Out-of-Scope Prediction", EMNLP-IJCNLP), read in place from the shared datasets folder given by the
- * system property {@code precedent.datasets}. Each query becomes a question and its intent, in words
- * ({@code pin_change} -> "pin change"), the answer.
+ * Out-of-Scope Prediction", EMNLP-IJCNLP), read in place by {@link Clinc150}. Each query becomes a
+ * question and its intent, in words ({@code pin_change} -> "pin change"), the answer.
  */
 public record ClincDomain(List<String> answers, List<TrainingPair> train, List<TrainingPair> validation,
     List<TrainingPair> test) {
 
   public static ClincDomain load(String domain) throws IOException {
-    String root = System.getProperty("precedent.datasets");
-    assertTrue(root != null, "set -Dprecedent.datasets to the shared datasets folder");
-    Path dir = Path.of(root, "clinc150");
-    assertTrue(Files.isRegularFile(dir.resolve("data_full.json")), "CLINC150 not found under " + dir);
-    ObjectMapper json = new ObjectMapper();
-    Map<String, List<String>> domains = json.readValue(dir.resolve("domains.json").toFile(), new TypeReference<>() {});
-    Map<String, List<List<String>>> data = json.readValue(dir.resolve("data_full.json").toFile(),
-        new TypeReference<>() {});
-    Set<String> intents = Set.copyOf(domains.get(domain));
-    List<String> answers = domains.get(domain).stream().map(ClincDomain::words).toList();
-    return new ClincDomain(answers, pairs(data.get("train"), intents), pairs(data.get("val"), intents),
-        pairs(data.get("test"), intents));
+    Clinc150 clinc = Clinc150.load();
+    Set<String> intents = clinc.intents(domain);
+    List<String> answers = intents.stream().map(Clinc150::inWords).toList();
+    return new ClincDomain(answers, pairs(clinc.split("train", intents)),
+        pairs(clinc.split("val", intents)), pairs(clinc.split("test", intents)));
   }
 
   /** The out-of-scope queries of a split ("oos_val", "oos_test"), which no intent answers. */
   public static List<String> outOfScope(String split) throws IOException {
-    Path dir = Path.of(System.getProperty("precedent.datasets"), "clinc150");
-    Map<String, List<List<String>>> data = new ObjectMapper().readValue(
-        dir.resolve("data_full.json").toFile(), new TypeReference<>() {});
-    return data.get(split).stream().map(row -> row.get(0)).toList();
+    return Clinc150.load().split(split, null).stream().map(Clinc150.Example::query).toList();
   }
 
   public static String words(String intent) {
-    return intent.replace('_', ' ');
+    return Clinc150.inWords(intent);
   }
 
-  private static List<TrainingPair> pairs(List<List<String>> rows, Set<String> intents) {
-    List<TrainingPair> out = new ArrayList<>();
-    for (List<String> row : rows) {
-      if (intents.contains(row.get(1))) {
-        out.add(new TrainingPair(row.get(0), words(row.get(1))));
-      }
-    }
-    return out;
+  private static List<TrainingPair> pairs(List<Clinc150.Example> examples) {
+    return examples.stream().map(e -> new TrainingPair(e.query(), words(e.intent()))).toList();
   }
 }

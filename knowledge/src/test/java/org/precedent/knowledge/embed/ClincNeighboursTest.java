@@ -12,7 +12,7 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
-import org.precedent.knowledge.testdata.Clinc150;
+import org.precedent.knowledge.datasets.Clinc150;
 
 /**
  * Frozen embeddings classify CLINC150 (Larson et al. 2019) by a nearest-neighbour vote over the train

@@ -2,6 +2,8 @@ package org.precedent.knowledge.retrieve;
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.IOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
@@ -9,6 +11,7 @@ import java.util.Set;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.datasets.Clinc150;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ColumnMapping;
 import org.precedent.knowledge.ingest.ExportFormat;
@@ -16,7 +19,6 @@ import org.precedent.knowledge.ingest.Ingestor;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
-import org.precedent.knowledge.testdata.Clinc150;
 
 /**
  * Candidate recall@k of BM25 on the banking domain of CLINC150 (Larson et al. 2019): train split
@@ -30,7 +32,7 @@ class ClincRecallTest {
   void bankingRecallMeetsItsFloors() throws Exception {
     Clinc150 clinc = Clinc150.load();
     Set<String> banking = clinc.intents("banking");
-    Path train = Clinc150.writeCsv(clinc.split("train", banking), tmp.resolve("banking.csv"));
+    Path train = writeCsv(clinc.split("train", banking), tmp.resolve("banking.csv"));
     DataDir data = new DataDir(tmp.resolve("data"));
     new Ingestor(data, TextCleaner.standard(), AnswerGrouper.standard()).ingest(train,
         ExportFormat.CSV, ColumnMapping.of(Map.of("question", "text", "label", "category")),
@@ -56,5 +58,15 @@ class ClincRecallTest {
       assertTrue(recall.get(10) >= 0.98, "recall@10 " + recall);
       assertTrue(recall.get(20) >= 0.98, "recall@20 " + recall);
     }
+  }
+
+  /** Writes examples as a CSV export with columns text,category, as a team would export them. */
+  private static Path writeCsv(List<Clinc150.Example> examples, Path file) throws IOException {
+    StringBuilder csv = new StringBuilder("text,category\n");
+    for (Clinc150.Example e : examples) {
+      csv.append('"').append(e.query().replace("\"", "\"\"")).append("\",").append(e.intent())
+          .append('\n');
+    }
+    return Files.writeString(file, csv);
   }
 }
