@@ -16,6 +16,7 @@ import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.ExportRows;
 import org.precedent.knowledge.ingest.IngestException;
 import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.ticket.Category;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -97,12 +98,12 @@ final class TriageCommand implements Callable<Integer> {
       String question = mapped.containsKey("question") ? text(row, mapped.get("question"))
           : String.join("\n", text(row, mapped.get("subject")), text(row, mapped.get("body")))
               .strip();
-      String category = text(row, mapped.get("category"));
+      String category = Category.normalise(text(row, mapped.get("category")));
       String error = row.error() != null ? in + ": line " + row.line() + ": " + row.error()
           : question.isEmpty() ? in + ": line " + row.line() + ": question: empty"
           : question.length() > 20_000 ? in + ": line " + row.line()
               + ": question: over 20,000 characters" : null;
-      tickets.add(new TriageTicket(id, row.line(), question, category.isEmpty() ? null : category,
+      tickets.add(new TriageTicket(id, row.line(), question, category,
           error));
     }
     return tickets;

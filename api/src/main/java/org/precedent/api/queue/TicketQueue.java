@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Optional;
 import org.precedent.api.suggest.DecisionView;
 import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.ticket.Category;
 import org.springframework.dao.DuplicateKeyException;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Component;
@@ -50,7 +51,7 @@ class TicketQueue {
   Submitted submit(SubmitRequest r, String submitter) {
     // Only the redacted text is ever stored or logged.
     String question = cleaner.cleanQuestion(r.question());
-    String category = r.category() == null || r.category().isBlank() ? null : r.category().strip();
+    String category = Category.normalise(r.category());
     try {
       db.update("INSERT INTO queue_ticket (ticket_id, question, category, status, submitted_by, "
           + "submitted_at) VALUES (?, ?, ?, ?, ?, ?)", r.ticketId(), question, category,

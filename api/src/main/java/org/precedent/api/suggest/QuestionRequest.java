@@ -5,6 +5,7 @@ import jakarta.validation.constraints.Min;
 import jakarta.validation.constraints.NotBlank;
 import jakarta.validation.constraints.Size;
 import org.precedent.api.system.Limits;
+import org.precedent.knowledge.ticket.Category;
 
 /**
  * A question to answer.
@@ -28,6 +29,6 @@ record QuestionRequest(
   }
 
   String categoryOrNull() {
-    return category == null || category.isBlank() ? null : category.strip();
+    return Category.normalise(category);
   }
 }

@@ -74,7 +74,13 @@ class ThresholdController {
     });
     String reason = change.reason().strip();
     audit.check("reason", reason, "threshold_change", "reason");
-    Thresholds next = new Thresholds(change.global(), perCategory);
+    Thresholds next;
+    try {
+      next = new Thresholds(change.global(), perCategory);
+    } catch (IllegalArgumentException e) {
+      // Two names for one category ("Billing" and "billing").
+      throw new FieldProblem("perCategory", e.getMessage());
+    }
     int width = audit.width("threshold_change", "new_value");
     String described = ThresholdAudit.describe(next);
     if (described.length() > width) {

@@ -78,6 +78,12 @@ class ThresholdServiceTest {
     assertEquals(400, badCategory.status());
     assertEquals("perCategory.water",
         badCategory.json().get("errors").get(0).get("field").asText());
+    Reply twoNames = http().put("/api/v1/threshold", Map.of("global", 0.5, "reason", "x",
+        "perCategory", Map.of("Water", 0.8, "water", 0.9)), Caller.MANAGER);
+    assertEquals(400, twoNames.status());
+    assertEquals("perCategory", twoNames.json().get("errors").get(0).get("field").asText());
+    assertTrue(twoNames.json().get("errors").get(0).get("message").asText()
+        .contains("differ only in case"), twoNames.json().toString());
     assertEquals(before, http().get("/api/v1/threshold", Caller.MANAGER).json().get("global")
         .asDouble());
     assertEquals(audited, http().get("/api/v1/threshold/changes", Caller.MANAGER).json().size());

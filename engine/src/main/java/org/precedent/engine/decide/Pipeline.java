@@ -82,7 +82,7 @@ public final class Pipeline {
 
     List<Explanation> parts = new ArrayList<>();
     parts.add(ranker.explain(ranked));
-    boolean ownThreshold = category != null && thresholds.perCategory().containsKey(category);
+    boolean ownThreshold = thresholds.own(category).isPresent();
     parts.add(Explanation.of("threshold", threshold, ownThreshold
         ? "the threshold for category '" + category + "'" : "the threshold for every category"));
     String groupId = best == null ? null : best.id();

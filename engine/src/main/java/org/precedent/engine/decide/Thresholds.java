@@ -1,7 +1,9 @@
 package org.precedent.engine.decide;
 
+import java.util.HashMap;
 import java.util.Map;
 import java.util.Optional;
+import org.precedent.knowledge.ticket.Category;
 
 /**
  * The confidence a question needs for an automatic reply: one global threshold, optionally
@@ -20,14 +22,32 @@ public record Thresholds(double global, Map<String, Double> perCategory) {
       });
       check(name, value);
     });
+    Map<String, String> byKey = new HashMap<>();
+    for (String name : perCategory.keySet()) {
+      String other = byKey.put(Category.key(name), name);
+      if (other != null) {
+        throw new IllegalArgumentException("categories '" + other + "' and '" + name
+            + "' differ only in case, and categories are compared without it: keep one");
+      }
+    }
   }
 
   public static Thresholds global(double threshold) {
     return new Thresholds(threshold, Map.of());
   }
 
+  /** The threshold for a ticket of {@code category} (compared as {@link Category#key}). */
   public double forCategory(String category) {
-    return category == null ? global : perCategory.getOrDefault(category, global);
+    return own(category).map(perCategory::get).orElse(global);
+  }
+
+  /** The name of the category's own threshold, when it has one. */
+  public Optional<String> own(String category) {
+    String key = Category.key(category);
+    if (key == null) {
+      return Optional.empty();
+    }
+    return perCategory.keySet().stream().filter(name -> Category.key(name).equals(key)).findFirst();
   }
 
   /**

@@ -6,12 +6,12 @@ import java.util.ArrayList;
 import java.util.Collections;
 import java.util.LinkedHashSet;
 import java.util.List;
-import java.util.Locale;
 import java.util.Objects;
 import java.util.Optional;
 import java.util.Set;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.precedent.knowledge.ticket.Category;
 
 /**
  * Decides whether a ticket is one Precedent must never answer on its own, and what to tell the customer instead.
@@ -95,8 +95,8 @@ public final class SafetyPolicy {
       return Optional.of(new SafetyFinding(first.ruleId(), first.topic(), first.matched(), SafetyFinding.Kind.TERM,
           caution, matches));
     }
-    if (category != null && humanOnlyCategories.contains(category.strip().toLowerCase(Locale.ROOT))) {
-      return Optional.of(new SafetyFinding("human-only-category", "human-only", category.strip(),
+    if (category != null && humanOnlyCategories.contains(Category.key(category))) {
+      return Optional.of(new SafetyFinding("human-only-category", "human-only", Category.normalise(category),
           SafetyFinding.Kind.HUMAN_ONLY_CATEGORY, Cautions.general()));
     }
     if (answerGroupId != null && humanOnlyGroups.contains(answerGroupId.strip())) {
@@ -173,7 +173,7 @@ public final class SafetyPolicy {
       if (id == null || id.isBlank() || SPACE.matcher(id.strip()).find()) {
         throw new IllegalArgumentException("a group or category id must be one word: '" + id + "'");
       }
-      out.add(lowerCase ? id.strip().toLowerCase(Locale.ROOT) : id.strip());
+      out.add(lowerCase ? Category.key(id) : id.strip());
     }
     return Collections.unmodifiableSet(out);
   }

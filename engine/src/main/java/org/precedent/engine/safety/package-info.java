@@ -84,7 +84,7 @@
  *
  * <p>{@code demo-data/safety.rules} is the policy of the invented demo utility.
  *
- * <p>The package depends on the JDK alone and on no other package of Precedent (the question reaches
- * it already cleaned, as text); the decision and the evaluation depend on it.
+ * <p>The package depends on the JDK and on {@code knowledge.ticket} alone (the category rule; the
+ * question reaches it already cleaned, as text); the decision and the evaluation depend on it.
  */
 package org.precedent.engine.safety;

@@ -58,6 +58,24 @@ class ThresholdsFileTest {
   }
 
   @Test
+  void aCategoryFindsItsThresholdWhateverItsCaseOrSpacing() {
+    Thresholds t = new Thresholds(0.9, Map.of("Billing", 0.97));
+    assertEquals(0.97, t.forCategory("billing"));
+    assertEquals(0.97, t.forCategory(" BILLING "));
+    assertEquals(Optional.of("Billing"), t.own("billing"));
+    assertEquals(0.9, t.forCategory("bins"));
+    assertEquals(0.9, t.forCategory(null));
+    assertEquals(Optional.empty(), t.own(null));
+  }
+
+  @Test
+  void twoThresholdsForOneCategoryInDifferentCaseAreRefused() {
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        () -> new Thresholds(0.9, Map.of("Billing", 0.97, "billing", 0.8)));
+    assertTrue(e.getMessage().contains("differ only in case"), e.getMessage());
+  }
+
+  @Test
   void aMalformedFileNamesItselfAndTheLine() throws IOException {
     DataDir dir = new DataDir(tmp);
     Path file = tmp.resolve("thresholds.properties");

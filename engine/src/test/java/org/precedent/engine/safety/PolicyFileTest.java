@@ -48,6 +48,20 @@ class PolicyFileTest {
   }
 
   @Test
+  void aHumanOnlyCategoryHoldsWhateverCaseOrFormTheTicketWritesItIn() throws IOException {
+    SafetyPolicy policy = SafetyPolicy.load(write(
+        "include-defaults = false",
+        "human-only-category = R\u00e9clamation"));
+    // "e" + U+0301 is canonically equivalent to U+00E9 (Unicode Standard Annex #15).
+    for (String written : List.of("r\u00e9clamation", " RE\u0301CLAMATION ", "R\u00e9clamation")) {
+      SafetyFinding f = policy.check("where is my refund", written, null).orElseThrow(
+          () -> new AssertionError("not held: " + written));
+      assertEquals(SafetyFinding.Kind.HUMAN_ONLY_CATEGORY, f.kind());
+    }
+    assertTrue(policy.check("where is my refund", "reclamation", null).isEmpty());
+  }
+
+  @Test
   void withoutTheDefaultsOnlyTheFilesRulesApply() throws IOException {
     SafetyPolicy policy = SafetyPolicy.load(write(
         "include-defaults = false",

@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.precedent.knowledge.clean.TextCleaner;
+import org.precedent.knowledge.ticket.Category;
 import org.precedent.knowledge.ticket.Ticket;
 
 /**
@@ -82,7 +83,7 @@ final class RowValidator {
       problems.add(problem(row, "reply", "empty" + (mapping.label() != null ? ", and no label" : "")));
       reply = "";
     }
-    String category = mapping.category() == null ? null : emptyToNull(text(v, mapping.category()));
+    String category = mapping.category() == null ? null : Category.normalise(text(v, mapping.category()));
     Instant created = null;
     if (mapping.created() != null && !text(v, mapping.created()).isEmpty()) {
       try {
