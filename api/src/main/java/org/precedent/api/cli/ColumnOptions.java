@@ -43,55 +43,37 @@ final class ColumnOptions {
   String created;
 
   /**
-   * Mapping key to column for an export of new tickets, which has no reply: from --mapping, the
-   * column options, or a mapping.properties beside the file; reply and label columns are ignored.
+   * The mapping of an export of new tickets, which has no reply: from --mapping, the column
+   * options, or a mapping.properties beside the file; reply, label and created columns are ignored.
    *
    * @throws IngestException when the export itself is missing or not a text file (said first: a
    *     mistyped file name is not a missing mapping)
    * @throws IllegalArgumentException when no question column is named, or a key is unknown
    */
-  Map<String, String> newTicketColumns(Path file, CommandSpec spec)
+  ColumnMapping newTicketMapping(Path file, CommandSpec spec)
       throws IOException, IngestException {
     Ingestor.checkFile(file);
-    Map<String, String> out = new LinkedHashMap<>();
+    Map<String, String> options = new LinkedHashMap<>();
+    putIfSet(options, "id", id);
+    putIfSet(options, "question", question);
+    putIfSet(options, "subject", subject);
+    putIfSet(options, "body", body);
+    putIfSet(options, "category", category);
     Path mappingPath = mappingFile;
     if (mappingPath == null && question == null && subject == null && body == null) {
       Path beside = file.toAbsolutePath().resolveSibling("mapping.properties");
-      if (Files.exists(beside)) {
-        mappingPath = beside;
-        spec.commandLine().getErr().println("using the column mapping in " + beside);
+      if (!Files.exists(beside)) {
+        throw new IllegalArgumentException("say which column holds the question: --question "
+            + "COLUMN, or --subject/--body COLUMN, or --mapping FILE");
       }
+      mappingPath = beside;
+      spec.commandLine().getErr().println("using the column mapping in " + beside);
     }
-    if (mappingPath != null) {
-      java.util.Properties p = new java.util.Properties();
-      try (var reader = Files.newBufferedReader(mappingPath)) {
-        p.load(reader);
-      }
-      for (String key : p.stringPropertyNames()) {
-        if (!ColumnMapping.KEYS.contains(key)) {
-          throw new IllegalArgumentException(mappingPath + ": unknown mapping key '" + key
-              + "' (known keys: " + String.join(", ", ColumnMapping.KEYS) + ")");
-        }
-        out.put(key, p.getProperty(key).strip());
-      }
+    if (question != null && (subject != null || body != null)) {
+      throw new IllegalArgumentException("name either --question or --subject/--body, not both");
     }
-    putIfSet(out, "id", id);
-    putIfSet(out, "question", question);
-    putIfSet(out, "subject", subject);
-    putIfSet(out, "body", body);
-    putIfSet(out, "category", category);
-    out.remove("reply");
-    out.remove("label");
-    out.remove("created");
-    if (out.get("question") == null && out.get("subject") == null && out.get("body") == null) {
-      throw new IllegalArgumentException("say which column holds the question: --question COLUMN, "
-          + "or --subject/--body COLUMN, or --mapping FILE");
-    }
-    if (out.get("question") != null && (out.get("subject") != null || out.get("body") != null)) {
-      throw new IllegalArgumentException(
-          "name either --question or --subject/--body, not both");
-    }
-    return out;
+    return mappingPath == null ? ColumnMapping.forNewTickets(options)
+        : ColumnMapping.newTicketsFromFile(mappingPath, options);
   }
 
   private static void putIfSet(Map<String, String> out, String key, String column) {

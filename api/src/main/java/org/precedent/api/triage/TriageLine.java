@@ -1,6 +1,7 @@
 package org.precedent.api.triage;
 
 import org.precedent.engine.decide.Decision;
+import org.precedent.knowledge.ingest.NewTicket;
 
 /**
  * One line of triage output (JSON Lines).
@@ -22,15 +23,15 @@ record TriageLine(String id, long line, String outcome, String reason, Double co
     Double threshold, String answerGroup, String reply, String caution, String explanation,
     String modelVersion, String error) {
 
-  static TriageLine of(TriageTicket t, Decision d, String version) {
+  static TriageLine of(NewTicket t, Decision d, String version) {
     return new TriageLine(t.id(), t.line(), d.outcome().name(),
         d.reason() == null ? null : d.reason().name().toLowerCase(java.util.Locale.ROOT),
         d.confidence(), d.threshold(), d.answerGroup(), d.reply(), d.caution(), d.explanation(),
         version, null);
   }
 
-  static TriageLine failed(TriageTicket t, String error) {
+  static TriageLine failed(NewTicket t) {
     return new TriageLine(t.id(), t.line(), null, null, null, null, null, null, null, null, null,
-        error);
+        t.problem().toString());
   }
 }

@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Optional;
 import org.precedent.engine.decide.Pipeline;
 import org.precedent.engine.decide.Decision;
+import org.precedent.knowledge.ingest.NewTicket;
 
 /**
  * Decides a file of new tickets into JSON Lines, resumable after a crash at any moment: lines are
@@ -45,7 +46,7 @@ public final class TriageRun {
    * @throws IllegalStateException when the output exists without a run to resume, or the input
    *     changed since the interrupted run
    */
-  public Result run(List<TriageTicket> tickets, long inputSize, Path out) throws IOException {
+  public Result run(List<NewTicket> tickets, long inputSize, Path out) throws IOException {
     Optional<TriageProgress> saved = TriageProgress.read(out);
     if (saved.isEmpty() && Files.exists(out) && Files.size(out) > 0) {
       throw new IllegalStateException(out + " exists and holds no unfinished triage: choose "
@@ -70,13 +71,13 @@ public final class TriageRun {
       ByteArrayOutputStream batch = new ByteArrayOutputStream();
       int inBatch = 0;
       for (long i = progress.tickets(); i < tickets.size(); i++) {
-        TriageTicket t = tickets.get((int) i);
+        NewTicket t = tickets.get((int) i);
         TriageLine line;
-        if (t.error() != null) {
-          line = TriageLine.failed(t, t.error());
+        if (t.problem() != null) {
+          line = TriageLine.failed(t);
           errors++;
         } else {
-          Decision d = pipeline.decide(t.question(), t.category());
+          Decision d = pipeline.decideCleaned(t.question(), t.category());
           line = TriageLine.of(t, d, version);
           if (line.outcome().equals("REPLY")) {
             replies++;

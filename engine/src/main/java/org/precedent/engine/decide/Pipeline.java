@@ -70,7 +70,15 @@ public final class Pipeline {
    * @param category    the ticket's category if known, else null
    */
   public Decision decide(String rawQuestion, String category) {
-    String question = cleaner.cleanQuestion(rawQuestion);
+    return decideCleaned(cleaner.cleanQuestion(rawQuestion), category);
+  }
+
+  /**
+   * @param question a question already cleaned and redacted (as ingest reads new tickets and the
+   *                 queue stores them): cleaning it again could strip more, a second greeting say
+   * @param category the ticket's category if known, else null
+   */
+  public Decision decideCleaned(String question, String category) {
     CandidateScoring scoring = candidates(question, null);
     Ranked ranked = rank(ScoringSystem.FUSED, scoring);
     boolean truncated = scoring.retrieval().truncated()

@@ -18,7 +18,9 @@ import java.util.Set;
  *
  * <p>The question is either one column ({@code question}) or a subject and a body joined. The reply
  * may be left out when a label column is mapped: the reply then becomes the label in words
- * ({@code pin_change} becomes "pin change").
+ * ({@code pin_change} becomes "pin change"). Resolved tickets ({@link #of}, {@link #fromFile}) need
+ * one of the two; new tickets ({@link #forNewTickets}) have neither, and are read by the same rules
+ * otherwise.
  *
  * @param id       column of the ticket id; when null, the id is the file name and record number
  * @param question column of the whole question, or null when subject and body are used
@@ -54,14 +56,29 @@ public record ColumnMapping(
       throw new IllegalArgumentException(
           "the mapping names both 'question' and 'subject'/'body': use one or the other");
     }
-    if (reply == null && label == null) {
-      throw new IllegalArgumentException(
-          "the mapping names no reply column: map 'reply', or 'label' to use the label as the reply");
-    }
   }
+
+  /** The keys a mapping of new tickets uses: they have no reply, label or resolution time yet. */
+  public static final List<String> NEW_TICKET_KEYS = List.of("id", "question", "subject", "body",
+      "category");
 
   /** A mapping read from a properties file ({@code key=column} lines), with command-line overrides. */
   public static ColumnMapping fromFile(Path file, Map<String, String> overrides) throws IOException {
+    return of(read(file, overrides));
+  }
+
+  /**
+   * A mapping of new tickets read from a mapping file, with command-line overrides: the file may
+   * be the one their resolved tickets were ingested with, whose reply, label and created keys are
+   * not used.
+   */
+  public static ColumnMapping newTicketsFromFile(Path file, Map<String, String> overrides)
+      throws IOException {
+    return forNewTickets(read(file, overrides));
+  }
+
+  private static Map<String, String> read(Path file, Map<String, String> overrides)
+      throws IOException {
     Properties properties = new Properties();
     try (Reader reader = Files.newBufferedReader(file, StandardCharsets.UTF_8)) {
       properties.load(reader);
@@ -81,14 +98,30 @@ public record ColumnMapping(
         values.put(k, v);
       }
     });
-    return of(values);
+    return values;
   }
 
-  /** A mapping from key to column name; missing keys are unmapped. */
+  /** A mapping of resolved tickets from key to column name; missing keys are unmapped. */
   public static ColumnMapping of(Map<String, String> values) {
+    ColumnMapping mapping = new ColumnMapping(values.get("id"), values.get("question"),
+        values.get("subject"), values.get("body"), values.get("reply"), values.get("label"),
+        values.get("category"), values.get("created"));
+    mapping.requireAnswer();
+    return mapping;
+  }
+
+  /** A mapping of new tickets: only {@link #NEW_TICKET_KEYS} are used, the others ignored. */
+  public static ColumnMapping forNewTickets(Map<String, String> values) {
     return new ColumnMapping(values.get("id"), values.get("question"), values.get("subject"),
-        values.get("body"), values.get("reply"), values.get("label"), values.get("category"),
-        values.get("created"));
+        values.get("body"), null, null, values.get("category"), null);
+  }
+
+  /** Refuses a mapping of resolved tickets that names no reply and no label. */
+  void requireAnswer() {
+    if (reply == null && label == null) {
+      throw new IllegalArgumentException(
+          "the mapping names no reply column: map 'reply', or 'label' to use the label as the reply");
+    }
   }
 
   /** Mapping key to column name, for every mapped key. */

@@ -76,6 +76,7 @@ public final class Ingestor {
    */
   public ParsedExport parse(Path file, ExportFormat format, ColumnMapping mapping, Progress progress)
       throws IngestException {
+    mapping.requireAnswer();
     ExportReader reader = new ExportReader(file, format);
     reader.checkFile();
     RowValidator validator = new RowValidator(file.toString(), file.getFileName().toString(),
@@ -115,6 +116,27 @@ public final class Ingestor {
     return new ParsedExport(file.toString(), read[0], rejected[0], tickets, problems,
         contacts.values().stream().filter(c -> c.tickets.size() >= PROPOSE_FROM_GROUPS)
             .map(c -> new ContactUse(c.written, List.copyOf(c.tickets))).toList());
+  }
+
+  /**
+   * Reads new tickets (not yet answered) from {@code file} by the rules resolved ones are read by:
+   * the same strict reading, field limits, id rules, cleaning (with this ingestor's cleaner) and
+   * category rule, so a ticket reads the same at ingest and when it is decided.
+   *
+   * @param mapping a mapping of new tickets ({@link ColumnMapping#forNewTickets})
+   * @return every record in file order, each with its question or its problem
+   * @throws IngestException when the file as a whole cannot be read, saying what and where
+   */
+  public List<NewTicket> readNew(Path file, ExportFormat format, ColumnMapping mapping)
+      throws IngestException {
+    ExportReader reader = new ExportReader(file, format);
+    reader.checkFile();
+    RowValidator validator = new RowValidator(file.toString(), file.getFileName().toString(),
+        mapping, cleaner);
+    List<NewTicket> tickets = new ArrayList<>();
+    reader.read(new LinkedHashSet<>(mapping.mapped().values()),
+        row -> tickets.add(validator.validateNew(row)), s -> { });
+    return tickets;
   }
 
   /** A contact detail found in raw replies, and the tickets whose replies hold it. */

@@ -39,6 +39,65 @@ final class RowValidator {
 
   /** The ticket, or null with {@code problems} filled in. */
   Ticket validate(SourceRow row, List<RowProblem> problems) {
+    int before = problems.size();
+    Asked asked = asked(row, problems);
+    if (asked == null) {
+      return null;
+    }
+    Map<String, String> v = row.values();
+    String id = asked.id();
+    String question = asked.question();
+    String label = mapping.label() == null ? null : emptyToNull(text(v, mapping.label()));
+    String rawReply = mapping.reply() == null ? "" : text(v, mapping.reply());
+    String reply;
+    if (!rawReply.isEmpty()) {
+      reply = cleaner.cleanReply(rawReply);
+    } else if (label != null) {
+      reply = inWords(label);
+    } else {
+      problems.add(problem(row, "reply", "empty" + (mapping.label() != null ? ", and no label" : "")));
+      reply = "";
+    }
+    String category = asked.category();
+    Instant created = null;
+    if (mapping.created() != null && !text(v, mapping.created()).isEmpty()) {
+      try {
+        created = parseTime(text(v, mapping.created()));
+      } catch (DateTimeParseException e) {
+        problems.add(problem(row, "created", "'" + abbreviate(text(v, mapping.created()))
+            + "' is not an ISO-8601 date or time (like 2026-03-12 or 2026-03-12T09:30:00Z)"));
+      }
+    }
+    if (problems.size() > before) {
+      return null;
+    }
+    return new Ticket(id, question, reply, label, category, created);
+  }
+
+  /**
+   * A new ticket, read by the same rules as a resolved one (id, question, category and field
+   * limits), with the first problem that keeps it from being decided.
+   */
+  NewTicket validateNew(SourceRow row) {
+    List<RowProblem> problems = new ArrayList<>();
+    Asked asked = asked(row, problems);
+    if (asked == null || !problems.isEmpty()) {
+      String id = asked != null && !asked.id().isEmpty() ? asked.id()
+          : fileName + ":" + row.line();
+      return new NewTicket(id, row.line(), null, asked == null ? null : asked.category(),
+          problems.get(0));
+    }
+    return new NewTicket(asked.id(), row.line(), asked.question(), asked.category(), null);
+  }
+
+  /** What every ticket has, resolved or not. */
+  private record Asked(String id, String question, String category) {}
+
+  /**
+   * The id, cleaned question and category of a row, with their problems added to {@code
+   * problems}; null when the row cannot be read at all (unparsable, or a field over the limit).
+   */
+  private Asked asked(SourceRow row, List<RowProblem> problems) {
     if (row.error() != null) {
       problems.add(new RowProblem(file, row.line(), row.field(), row.error()));
       return null;
@@ -72,31 +131,9 @@ final class RowValidator {
       problems.add(problem(row, "question",
           "nothing left once greetings, signatures and quoted mail are removed"));
     }
-    String label = mapping.label() == null ? null : emptyToNull(text(v, mapping.label()));
-    String rawReply = mapping.reply() == null ? "" : text(v, mapping.reply());
-    String reply;
-    if (!rawReply.isEmpty()) {
-      reply = cleaner.cleanReply(rawReply);
-    } else if (label != null) {
-      reply = inWords(label);
-    } else {
-      problems.add(problem(row, "reply", "empty" + (mapping.label() != null ? ", and no label" : "")));
-      reply = "";
-    }
-    String category = mapping.category() == null ? null : Category.normalise(text(v, mapping.category()));
-    Instant created = null;
-    if (mapping.created() != null && !text(v, mapping.created()).isEmpty()) {
-      try {
-        created = parseTime(text(v, mapping.created()));
-      } catch (DateTimeParseException e) {
-        problems.add(problem(row, "created", "'" + abbreviate(text(v, mapping.created()))
-            + "' is not an ISO-8601 date or time (like 2026-03-12 or 2026-03-12T09:30:00Z)"));
-      }
-    }
-    if (problems.size() > before) {
-      return null;
-    }
-    return new Ticket(id, question, reply, label, category, created);
+    String category = mapping.category() == null ? null
+        : Category.normalise(text(v, mapping.category()));
+    return new Asked(id, question, category);
   }
 
   private String clean(String raw) {
