@@ -21,8 +21,9 @@ import org.springframework.stereotype.Component;
  * line of waiting requests; a request beyond the line, or one that waited its time in it, is
  * refused with {@link Busy} (503 and Retry-After) rather than left to queue without end.
  *
- * <p>Scoring is serialised on the one network, so more decisions at once only lengthen every
- * wait. And each thread that scores keeps its own native working memory (the network's
+ * <p>The reranker keeps one copy of its network per processor ({@code engine.rerank.Scorer}), so
+ * as many decisions as there are processors score at once and more only lengthen every wait. And
+ * each thread that scores keeps its own native working memory (the network's
  * workspaces are per thread): deciding on these threads alone keeps that memory to a few sets,
  * however many connection threads the server has.
  */

@@ -98,7 +98,7 @@ public final class TeamModelTrainer {
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
     FusionFit fit;
     try (Retriever retriever = Retriever.open(knowledge)) {
-      fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model())), fusion);
+      fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model(), 1)), fusion);
     }
     // The fusion model is written with the version, so that its manifest covers it too.
     ModelStore store = new ModelStore(dataDir.models());

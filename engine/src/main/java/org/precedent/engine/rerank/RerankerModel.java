@@ -10,7 +10,8 @@ import org.precedent.engine.rerank.tokens.Vocabulary;
 /**
  * A trained reranker: network, vocabulary, settings and the anti-LM weight chosen on validation data.
  *
- * <p>The network is mutable DL4J state and not safe for concurrent use; {@link Scorer} serialises access.
+ * <p>The network is mutable DL4J state and not safe for concurrent use; {@link Scorer} gives each pass
+ * that runs at once its own copy.
  */
 public final class RerankerModel {
 

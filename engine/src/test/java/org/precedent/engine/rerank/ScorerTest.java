@@ -2,6 +2,7 @@ package org.precedent.engine.rerank;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
@@ -134,5 +135,52 @@ class ScorerTest {
       }
     }
     assertEquals(0, best, "scores: " + scores);
+  }
+
+  @Test
+  void passesOnSeveralCopiesAtOnceScoreAsOnePassAlone() throws Exception {
+    List<String> answers = TinyData.ANSWERS.subList(0, 4);
+    List<AnswerScore> alone = new Scorer(model, 1).score(question, answers);
+    Scorer shared = new Scorer(model, 3);
+    assertEquals(3, shared.copies());
+    java.util.concurrent.ExecutorService pool = java.util.concurrent.Executors.newFixedThreadPool(3);
+    try {
+      List<java.util.concurrent.Future<List<AnswerScore>>> runs = new ArrayList<>();
+      for (int i = 0; i < 24; i++) {
+        runs.add(pool.submit(() -> shared.score(question, answers)));
+      }
+      for (java.util.concurrent.Future<List<AnswerScore>> run : runs) {
+        List<AnswerScore> got = run.get();
+        for (int i = 0; i < answers.size(); i++) {
+          // The same weights and the same arithmetic: equal to float rounding (common practice).
+          assertEquals(alone.get(i).logLikelihood(), got.get(i).logLikelihood(), 1e-4);
+        }
+      }
+    } finally {
+      pool.shutdownNow();
+    }
+  }
+
+  @Test
+  void aCopyCountBelowOneOrNotANumberIsRefusedNamingTheSetting() {
+    assertThrows(IllegalArgumentException.class, () -> new Scorer(model, 0));
+    String before = System.getProperty(Scorer.COPIES_PROPERTY);
+    try {
+      System.setProperty(Scorer.COPIES_PROPERTY, "two");
+      IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+          () -> Scorer.copiesFor(2));
+      assertTrue(e.getMessage().contains(Scorer.COPIES_PROPERTY) && e.getMessage().contains("'two'"),
+          e.getMessage());
+      System.setProperty(Scorer.COPIES_PROPERTY, "3");
+      assertEquals(3, Scorer.copiesFor(2));
+      System.clearProperty(Scorer.COPIES_PROPERTY);
+      assertEquals(2, Scorer.copiesFor(2));
+    } finally {
+      if (before == null) {
+        System.clearProperty(Scorer.COPIES_PROPERTY);
+      } else {
+        System.setProperty(Scorer.COPIES_PROPERTY, before);
+      }
+    }
   }
 }

@@ -81,7 +81,7 @@ public final class RerankerBenchmark {
     Files.delete(file);
 
     // Scoring latency: one question, 10 candidate answers, anti-LM on with P(answer) cached after warm-up.
-    Scorer scorer = new Scorer(new RerankerModel(graph, vocabulary, config, 0.5));
+    Scorer scorer = new Scorer(new RerankerModel(graph, vocabulary, config, 0.5), 1);
     String question = text(random, 20, 20);
     List<String> answers = new ArrayList<>();
     for (int i = 0; i < CANDIDATES; i++) {
@@ -101,6 +101,21 @@ public final class RerankerBenchmark {
     line("scoring %d candidates (question 20 tokens, answers 40): p50 %.1f ms, p99 %.1f ms over %d runs",
         CANDIDATES, p50, percentile(millis, 0.99), repetitions);
 
+    // Throughput with passes at once, each on its own copy of the network (the service's decision
+    // threads): one thread is the baseline, the ratio says how much of the second core is used.
+    RerankerModel shared = new RerankerModel(graph, vocabulary, config, 0.5);
+    double single = 0;
+    for (int threads : new int[] {1, Runtime.getRuntime().availableProcessors()}) {
+      double rate = passesPerSecond(new Scorer(shared, threads), threads, question, answers,
+          repetitions);
+      single = threads == 1 ? rate : single;
+      line("scoring %d candidates from %d thread(s) at once, one network copy each: %.1f passes/s "
+          + "(%.2fx one thread)", CANDIDATES, threads, rate, rate / single);
+      if (Runtime.getRuntime().availableProcessors() == 1) {
+        break;
+      }
+    }
+
     double machine = 0;
     for (int n : new int[] {512, 1024}) {
       double rate = mmulGflops(n);
@@ -111,6 +126,28 @@ public final class RerankerBenchmark {
     double achieved = flops / (p50 / 1000) / 1e9;
     line("scoring pass: %.2f GFLOP (estimate from layer sizes), %.1f GFLOP/s achieved, %.0f%% of the machine rate",
         flops / 1e9, achieved, 100 * achieved / machine);
+  }
+
+  /** Scoring passes per second with {@code threads} threads each running {@code runs} passes. */
+  private static double passesPerSecond(Scorer scorer, int threads, String question,
+      List<String> answers, int runs) throws InterruptedException {
+    for (int i = 0; i < 5; i++) {
+      scorer.score(question, answers);
+    }
+    Thread[] workers = new Thread[threads];
+    long t0 = System.nanoTime();
+    for (int t = 0; t < threads; t++) {
+      workers[t] = new Thread(() -> {
+        for (int i = 0; i < runs; i++) {
+          scorer.score(question, answers);
+        }
+      }, "bench-score-" + t);
+      workers[t].start();
+    }
+    for (Thread w : workers) {
+      w.join();
+    }
+    return threads * (double) runs / ((System.nanoTime() - t0) / 1e9);
   }
 
   /**

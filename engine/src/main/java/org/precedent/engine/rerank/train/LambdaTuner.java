@@ -35,7 +35,7 @@ final class LambdaTuner {
       return new Choice(0, Double.NaN, 0);
     }
     // With lambda = 1, antiLm = ll - lm, so each candidate's lm is recovered as ll - antiLm.
-    Scorer scorer = new Scorer(model.withAntiLmLambda(1.0));
+    Scorer scorer = new Scorer(model.withAntiLmLambda(1.0), 1);
     Random random = new Random(seed);
     List<TrainingPair> questions = new ArrayList<>(validation);
     Collections.shuffle(questions, random);
