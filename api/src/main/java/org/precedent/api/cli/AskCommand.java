@@ -61,7 +61,7 @@ final class AskCommand implements Callable<Integer> {
     try (InForce active = InForce.open(dataDir)) {
       Pipeline pipeline = active.pipeline();
       DecisionPrinter printer = new DecisionPrinter(out, candidates);
-      return eachQuestion(out, q -> printer.print(pipeline.decide(q, category)));
+      return eachQuestion(out, q -> printer.print(pipeline.decide(q, category), active.version()));
     }
   }
 

@@ -4,16 +4,18 @@ import java.io.PrintWriter;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import org.precedent.api.decision.CandidateView;
+import org.precedent.api.decision.DecisionView;
+import org.precedent.api.decision.EvidenceView;
 import org.precedent.engine.decide.Decision;
 import org.precedent.engine.decide.Outcome;
 import org.precedent.engine.explain.Explanation;
-import org.precedent.engine.fusion.ScoredCandidate;
 import org.precedent.engine.measure.ThresholdDecimals;
-import org.precedent.knowledge.retrieve.Evidence;
 
 /**
- * Prints a decision: outcome, reason, caution, then the candidates in the fused order with their
- * evidence.
+ * Prints a decision as text: outcome, reason, caution, then the candidates in the fused order with
+ * their evidence. It prints the service's view of the decision, so that {@code ask} shows what the
+ * service returns.
  */
 final class DecisionPrinter {
   private final PrintWriter out;
@@ -24,19 +26,24 @@ final class DecisionPrinter {
     this.candidates = candidates;
   }
 
-  void print(Decision d) {
+  /** Prints an engine decision made on model {@code version}, as the service would show it. */
+  void print(Decision d, String version) {
+    print(DecisionView.of(d, version, candidates));
+  }
+
+  void print(DecisionView d) {
     out.println("question: " + Text.abbreviate(d.question(), 200)
         + (d.truncated() ? "  (cut to the length the models take)" : ""));
     // One chance per answer: the calibrated confidence that the best answer is right, cut to the
     // threshold's decimals so that it never prints at or above a threshold it is below.
     String confidence = ThresholdDecimals.confidence(d.confidence(), d.threshold());
     String threshold = ThresholdDecimals.of(d.threshold());
-    if (d.outcome() == Outcome.REPLY) {
+    if (Outcome.REPLY.name().equals(d.outcome())) {
       out.println("REPLY  confidence " + confidence + " that this answer is right, threshold "
           + threshold);
       out.println("   " + Text.abbreviate(d.reply(), 400));
     } else {
-      out.println("HAND OFF (" + d.reason().name().toLowerCase(Locale.ROOT).replace('_', ' ')
+      out.println("HAND OFF (" + d.reason().replace('_', ' ')
           + ")  confidence " + confidence + " that the best answer is right, threshold "
           + threshold);
       if (d.caution() != null) {
@@ -45,18 +52,18 @@ final class DecisionPrinter {
     }
     out.println("   why: " + d.explanation());
     out.println("   made of: " + parts(d.why()));
-    List<ScoredCandidate> shown = d.candidates().subList(0, Math.min(candidates,
+    List<CandidateView> shown = d.candidates().subList(0, Math.min(candidates,
         d.candidates().size()));
-    for (int i = 0; i < shown.size(); i++) {
-      ScoredCandidate c = shown.get(i);
+    for (CandidateView c : shown) {
       // The candidates' own scores order them; only the first has a calibrated chance (above).
       out.printf(Locale.ROOT, "%n%d. answer %s%s  BM25 %.2f (rank %d)  reranker %.1f "
-              + "(%.2f per token)  used %d times%n", i + 1, c.candidate().group().id(),
-          i == 0 ? "  (the best answer)" : "", c.candidate().score(), c.candidate().rank(),
-          c.rerank().antiLm(), c.rerank().perTokenLogLikelihood(), c.candidate().group().size());
-      out.println("   " + Text.abbreviate(c.candidate().group().canonical(), 160));
-      for (Evidence e : c.candidate().evidence()) {
-        out.println(RetrievalPrinter.evidenceLine(e));
+              + "(%.2f per token)  used %d times%n", c.rank(), c.answerGroup(),
+          c.rank() == 1 ? "  (the best answer)" : "", c.bm25(), c.bm25Rank(), c.reranker(),
+          c.rerankerPerToken(), c.usedTimes());
+      out.println("   " + Text.abbreviate(c.answer(), 160));
+      for (EvidenceView e : c.evidence()) {
+        out.println(RetrievalPrinter.evidenceLine(e.ticketId(), e.score(),
+            e.highlighted("*", "*")));
       }
     }
     out.println();

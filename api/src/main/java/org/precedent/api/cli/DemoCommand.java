@@ -166,7 +166,7 @@ final class DemoCommand implements Callable<Integer> {
       Pipeline pipeline = active.pipeline();
       DecisionPrinter printer = new DecisionPrinter(out, 2);
       for (String q : SAMPLES) {
-        printer.print(pipeline.decide(q, null));
+        printer.print(pipeline.decide(q, null), active.version());
       }
     }
     out.println("Ask more: ./precedent ask --data " + data + " \"my bin was not collected\"");

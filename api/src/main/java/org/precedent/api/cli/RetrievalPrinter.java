@@ -48,7 +48,11 @@ final class RetrievalPrinter {
 
   /** One evidence ticket on one line: id, BM25 score, question with matched terms *marked*. */
   static String evidenceLine(Evidence e) {
-    return String.format(Locale.ROOT, "   - %s  %.2f  %s", e.ticketId(), e.score(),
-        Text.abbreviate(e.highlighted("*", "*"), 110));
+    return evidenceLine(e.ticketId(), e.score(), e.highlighted("*", "*"));
+  }
+
+  static String evidenceLine(String ticketId, double score, String highlighted) {
+    return String.format(Locale.ROOT, "   - %s  %.2f  %s", ticketId, score,
+        Text.abbreviate(highlighted, 110));
   }
 }

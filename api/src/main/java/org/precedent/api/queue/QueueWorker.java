@@ -8,8 +8,8 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
-import org.precedent.api.suggest.Decider;
-import org.precedent.api.suggest.DecisionView;
+import org.precedent.api.decision.Decider;
+import org.precedent.api.decision.DecisionView;
 import org.precedent.api.system.StorageFailures;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -114,7 +114,7 @@ class QueueWorker implements SmartLifecycle {
   private void decide(TicketQueue.Claimed c) {
     DecisionView d;
     try {
-      d = decider.decide(c.question(), c.category(), 3, "queue");
+      d = decider.decideCleaned(c.question(), c.category(), 3, "queue");
     } catch (RuntimeException | Error e) {
       String reason = describe(e);
       LOG.warn("ticket {}: decision failed (try {} of {}): {}", c.ticketId(), c.attempt(),

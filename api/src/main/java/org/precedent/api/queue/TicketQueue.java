@@ -6,7 +6,7 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.List;
 import java.util.Optional;
-import org.precedent.api.suggest.DecisionView;
+import org.precedent.api.decision.DecisionView;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.ticket.Category;
 import org.springframework.dao.DuplicateKeyException;

@@ -1,6 +1,6 @@
 package org.precedent.api.queue;
 
-import org.precedent.api.suggest.DecisionView;
+import org.precedent.api.decision.DecisionView;
 
 /**
  * A queued ticket and, once made, its decision.

@@ -5,8 +5,8 @@
  * conditional update and stores each decision in the transaction that marks the ticket decided, a
  * ticket that keeps failing ends as {@code FAILED} for a person, and {@link
  * org.precedent.api.queue.QueueHealth} reports the worker. It depends on {@code api.system}, on {@code
- * api.suggest} (the {@code Decider} and the decision's view, a sideways dependency the redesign means
- * to remove), {@code knowledge.clean}, Spring (web, JDBC, transactions), Micrometer and Jackson;
+ * api.decision} (the {@code Decider}, which decides the stored question as cleaned, and the
+ * decision's view), {@code knowledge.clean}, Spring (web, JDBC, transactions), Micrometer and Jackson;
  * nothing depends on it.
  */
 package org.precedent.api.queue;

@@ -1,6 +1,8 @@
 package org.precedent.api.suggest;
 
 import jakarta.validation.Valid;
+import org.precedent.api.decision.Decider;
+import org.precedent.api.decision.DecisionView;
 import org.precedent.api.system.DecisionSlots;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;

@@ -1,10 +1,11 @@
 package org.precedent.api.triage;
 
-import org.precedent.engine.decide.Decision;
+import org.precedent.api.decision.DecisionView;
 import org.precedent.knowledge.ingest.NewTicket;
 
 /**
- * One line of triage output (JSON Lines).
+ * One line of triage output (JSON Lines): the service's view of the decision, flat, without
+ * candidates.
  *
  * @param id           the ticket's id
  * @param line         the input line it came from
@@ -23,11 +24,10 @@ record TriageLine(String id, long line, String outcome, String reason, Double co
     Double threshold, String answerGroup, String reply, String caution, String explanation,
     String modelVersion, String error) {
 
-  static TriageLine of(NewTicket t, Decision d, String version) {
-    return new TriageLine(t.id(), t.line(), d.outcome().name(),
-        d.reason() == null ? null : d.reason().name().toLowerCase(java.util.Locale.ROOT),
-        d.confidence(), d.threshold(), d.answerGroup(), d.reply(), d.caution(), d.explanation(),
-        version, null);
+  static TriageLine of(NewTicket t, DecisionView d) {
+    return new TriageLine(t.id(), t.line(), d.outcome(), d.reason(), d.confidence(),
+        d.threshold(), d.answerGroup(), d.reply(), d.caution(), d.explanation(), d.modelVersion(),
+        null);
   }
 
   static TriageLine failed(NewTicket t) {

@@ -12,6 +12,7 @@ import java.nio.file.StandardOpenOption;
 import java.util.List;
 import java.util.Optional;
 import org.precedent.engine.decide.Pipeline;
+import org.precedent.api.decision.DecisionView;
 import org.precedent.engine.decide.Decision;
 import org.precedent.knowledge.ingest.NewTicket;
 
@@ -78,7 +79,7 @@ public final class TriageRun {
           errors++;
         } else {
           Decision d = pipeline.decideCleaned(t.question(), t.category());
-          line = TriageLine.of(t, d, version);
+          line = TriageLine.of(t, DecisionView.of(d, version, 0));
           if (line.outcome().equals("REPLY")) {
             replies++;
           } else {

@@ -1,7 +1,8 @@
-package org.precedent.api.suggest;
+package org.precedent.api.decision;
 
 import java.util.List;
 import org.precedent.knowledge.retrieve.Evidence;
+import org.precedent.knowledge.retrieve.Match;
 
 /**
  * A past ticket behind a proposed answer.
@@ -21,6 +22,13 @@ public record EvidenceView(String ticketId, double score, String question, Strin
    * @param term the shared word, as the index stores it (lower case, stemmed)
    */
   public record Span(int start, int end, String term) {}
+
+  /** The question with each matching span wrapped in {@code open} and {@code close}. */
+  public String highlighted(String open, String close) {
+    return new Evidence(ticketId, score, question, category,
+        spans.stream().map(s -> new Match(s.start(), s.end(), s.term())).toList())
+        .highlighted(open, close);
+  }
 
   static EvidenceView of(Evidence e) {
     return new EvidenceView(e.ticketId(), e.score(), e.question(), e.category(),

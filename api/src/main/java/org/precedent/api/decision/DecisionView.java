@@ -1,4 +1,4 @@
-package org.precedent.api.suggest;
+package org.precedent.api.decision;
 
 import java.util.List;
 import java.util.Locale;

@@ -1,4 +1,4 @@
-package org.precedent.api.suggest;
+package org.precedent.api.decision;
 
 import io.micrometer.core.instrument.MeterRegistry;
 import org.precedent.api.system.PipelineLease;
@@ -8,7 +8,10 @@ import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 import org.springframework.stereotype.Component;
 
-/** Decides questions on the model in force, and counts the outcomes for the metrics. */
+/**
+ * Decides questions on the model in force, and counts the outcomes for the metrics: the one door
+ * through which the service's suggestions, decisions and queue reach the pipeline.
+ */
 @Component
 public class Decider {
   private static final Logger LOG = LoggerFactory.getLogger(Decider.class);
@@ -21,12 +24,28 @@ public class Decider {
   }
 
   /**
+   * Decides a question as a caller sent it: it is cleaned and redacted first.
+   *
    * @param source who asked (suggestions, decisions, queue), a tag of the decision counter
    * @param limit  how many candidates the view keeps
    */
   public DecisionView decide(String question, String category, int limit, String source) {
+    return decide(question, category, limit, source, false);
+  }
+
+  /**
+   * Decides a question stored as cleaned (the queue cleans a ticket when it accepts it): cleaning
+   * it again could strip more than the stored text shows, a second greeting say.
+   */
+  public DecisionView decideCleaned(String question, String category, int limit, String source) {
+    return decide(question, category, limit, source, true);
+  }
+
+  private DecisionView decide(String question, String category, int limit, String source,
+      boolean cleaned) {
     try (PipelineLease lease = models.lease()) {
-      Decision d = lease.pipeline().decide(question, category);
+      Decision d = cleaned ? lease.pipeline().decideCleaned(question, category)
+          : lease.pipeline().decide(question, category);
       meters.counter("precedent.decisions", "source", source, "outcome", d.outcome().name())
           .increment();
       return DecisionView.of(d, lease.version(), limit);
