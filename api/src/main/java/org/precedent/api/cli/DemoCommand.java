@@ -156,8 +156,8 @@ final class DemoCommand implements Callable<Integer> {
       HeldOutEvaluation evaluation = HeldOutEvaluation.run(dataDir, active, heldOut,
           "demo held-out split", 0.95, dataDir.reports(), null,
           new Progress("evaluating", "tickets", System.err));
-      EvaluateCommand.print(out, evaluation);
-      EvaluateCommand.applyThreshold(out, dataDir, active, evaluation,
+      EvaluationPrinter.print(out, evaluation);
+      EvaluationPrinter.applyThreshold(out, dataDir, active, evaluation,
           "the demo: guaranteed threshold of its held-out evaluation at target precision 0.95");
     }
 
@@ -176,7 +176,7 @@ final class DemoCommand implements Callable<Integer> {
     }
     out.printf(Locale.ROOT, "%n[6] starting the service on the demo model%n");
     out.flush();
-    return ServeCommand.serve(out, spec.commandLine().getErr(), data, port, List.of());
+    return Serving.run(out, spec.commandLine().getErr(), data, port, List.of());
   }
 
   /**

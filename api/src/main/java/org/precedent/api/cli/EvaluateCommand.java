@@ -2,16 +2,11 @@ package org.precedent.api.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.precedent.api.threshold.ThresholdAudit;
 import org.precedent.engine.decide.InForce;
-import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.HeldOutEvaluation;
 import org.precedent.engine.evaluate.ReportFiles;
-import org.precedent.engine.evaluate.SystemReport;
-import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.ExportFormat;
 import org.precedent.knowledge.ingest.Ingestor;
@@ -84,50 +79,13 @@ final class EvaluateCommand implements Callable<Integer> {
       HeldOutEvaluation result = HeldOutEvaluation.run(dataDir, active, parsed,
           file.getFileName().toString(), target, out != null ? out : dataDir.reports(), previous,
           new Progress("evaluating", "tickets", System.err));
-      print(w, result);
+      EvaluationPrinter.print(w, result);
       if (apply) {
-        applyThreshold(w, dataDir, active, result, reason != null ? reason
+        EvaluationPrinter.applyThreshold(w, dataDir, active, result, reason != null ? reason
             : "guaranteed threshold of the evaluation " + result.json() + " at target precision "
                 + target);
       }
     }
     return 0;
-  }
-
-  /** Puts the fused system's guaranteed threshold in force, when there is one. */
-  static void applyThreshold(PrintWriter w, DataDir dataDir, InForce active,
-      HeldOutEvaluation result, String reason) throws java.io.IOException {
-    var threshold = result.guaranteedThreshold();
-    if (threshold.isPresent()) {
-      ThresholdAudit.applyFromCommandLine(dataDir, new Thresholds(threshold.getAsDouble(),
-          active.thresholds().perCategory()), System.getProperty("user.name") + " (command line)",
-          reason);
-      w.println("threshold " + ThresholdDecimals.of(threshold.getAsDouble())
-          + " is now in force for automatic replies");
-    } else {
-      w.println("no threshold could be guaranteed; the threshold in force is unchanged");
-    }
-  }
-
-  static void print(PrintWriter w, HeldOutEvaluation result) {
-    EvaluationReport report = result.report();
-    int all = result.questions().size();
-    long inScope = result.inScope();
-    w.printf(Locale.ROOT, "%d held-out tickets: %d with a known answer, %d out of scope%n",
-        all, inScope, all - inScope);
-    w.printf(Locale.ROOT, "%-16s %7s %7s %7s %7s %7s %7s %9s%n", "system", "top-1", "MRR",
-        "R@10", "ECE", "Brier", "AUROC", "cov@95%");
-    for (SystemReport s : report.systems()) {
-      var m = s.measures();
-      w.printf(Locale.ROOT, "%-16s %7.3f %7.3f %7.3f %7.3f %7.3f %7.3f %9.3f%n", s.name(), m.top1(),
-          m.meanReciprocalRank(), m.recallAt10(), m.expectedCalibrationError(), m.brierScore(),
-          m.auroc(), m.coverageAt95());
-    }
-    w.println(HeldOutEvaluation.fused(report).recommendation().explanation());
-    w.printf(Locale.ROOT, "%d of these tickets fall under a safety rule or a people-only category: in "
-        + "service they are handed off whatever the confidence (the figures above measure the model "
-        + "alone)%n", result.safetyHandOffs());
-    w.println("report: " + result.html());
-    w.println("        " + result.json());
   }
 }

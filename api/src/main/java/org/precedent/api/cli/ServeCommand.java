@@ -3,14 +3,8 @@ package org.precedent.api.cli;
 import java.io.PrintWriter;
 import java.util.List;
 import java.util.concurrent.Callable;
-import java.util.concurrent.CountDownLatch;
-import org.precedent.api.system.InForceHolder;
-import org.precedent.api.system.PrecedentServer;
-import org.precedent.api.system.ServiceStartException;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.knowledge.store.DataDir;
-import org.springframework.context.ConfigurableApplicationContext;
-import org.springframework.context.event.ContextClosedEvent;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -55,44 +49,7 @@ final class ServeCommand implements Callable<Integer> {
           + " yet: run 'precedent train' first");
       return PrecedentCommand.FAILED;
     }
-    return serve(out, spec.commandLine().getErr(), parent.dataDir(), port,
+    return Serving.run(out, spec.commandLine().getErr(), parent.dataDir(), port,
         settings == null ? List.of() : settings);
-  }
-
-  /** Starts the service on a data directory with a trained model; returns when it is stopped. */
-  static int serve(PrintWriter out, PrintWriter err, java.nio.file.Path data, int port,
-      List<String> settings) throws InterruptedException, java.io.IOException {
-    ConfigurableApplicationContext context;
-    NumericLibrary.announce(err);
-    try {
-      context = PrecedentServer.start(data, port, settings);
-    } catch (ServiceStartException e) {
-      err.println("precedent serve: " + e.getMessage());
-      return PrecedentCommand.FAILED;
-    } catch (RuntimeException e) {
-      err.println("precedent serve: " + Messages.oneLine(rootCause(e)));
-      return PrecedentCommand.FAILED;
-    }
-    CountDownLatch closed = new CountDownLatch(1);
-    context.addApplicationListener(e -> {
-      if (e instanceof ContextClosedEvent) {
-        closed.countDown();
-      }
-    });
-    String version = context.getBean(InForceHolder.class).version();
-    out.printf("Precedent is serving model %s from %s at %s%n", version,
-        data.toAbsolutePath(), PrecedentServer.url(context));
-    out.println("Stop it with Ctrl-C.");
-    out.flush();
-    closed.await();
-    return 0;
-  }
-
-  private static Throwable rootCause(Throwable e) {
-    Throwable t = e;
-    while (t.getCause() != null && t.getCause() != t) {
-      t = t.getCause();
-    }
-    return t;
   }
 }

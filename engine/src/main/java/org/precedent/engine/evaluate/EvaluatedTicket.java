@@ -2,7 +2,7 @@ package org.precedent.engine.evaluate;
 
 import java.util.Objects;
 import org.precedent.engine.measure.RankedOutcome;
-import org.precedent.engine.measure.ScoredAnswer;
+import org.precedent.engine.measure.JudgedAnswer;
 
 /**
  * How one system did on one held-out ticket.
@@ -54,8 +54,8 @@ public record EvaluatedTicket(String ticketId, String category, boolean inScope,
   }
 
   /** The ticket as the measures see it: the confidence, and whether the top answer was right. */
-  public ScoredAnswer scored() {
-    return new ScoredAnswer(confidence, replyRight());
+  public JudgedAnswer scored() {
+    return new JudgedAnswer(confidence, replyRight());
   }
 
   RankedOutcome ranked() {

@@ -12,7 +12,7 @@ import org.precedent.engine.measure.GuaranteedThreshold;
 import org.precedent.engine.measure.RankedOutcome;
 import org.precedent.engine.measure.Ranking;
 import org.precedent.engine.measure.RiskCoveragePoint;
-import org.precedent.engine.measure.ScoredAnswer;
+import org.precedent.engine.measure.JudgedAnswer;
 import org.precedent.engine.measure.SelectivePrediction;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.engine.measure.ThresholdRecommendation;
@@ -32,7 +32,7 @@ final class SystemEvaluation {
 
   static SystemReport of(SystemRun run, double targetPrecision, double delta, OptionalDouble given) {
     List<EvaluatedTicket> tickets = run.tickets();
-    List<ScoredAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
+    List<JudgedAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
     List<RankedOutcome> ranked =
         tickets.stream().filter(EvaluatedTicket::inScope).map(EvaluatedTicket::ranked).toList();
     List<RiskCoveragePoint> curve = SelectivePrediction.riskCoverageCurve(scored);
@@ -68,7 +68,7 @@ final class SystemEvaluation {
 
   /** What the service would do at each threshold: the safety gate first, then the threshold. */
   static List<ServiceRow> service(List<EvaluatedTicket> tickets, List<Double> thresholds) {
-    List<ScoredAnswer> open = tickets.stream().filter(t -> !t.safetyGate())
+    List<JudgedAnswer> open = tickets.stream().filter(t -> !t.safetyGate())
         .map(EvaluatedTicket::scored).toList();
     List<EvaluatedTicket> gated = tickets.stream().filter(EvaluatedTicket::safetyGate).toList();
     List<ThresholdRow> rows = ThresholdTable.rows(open, gated.size(), thresholds);
@@ -80,7 +80,7 @@ final class SystemEvaluation {
     return List.copyOf(out);
   }
 
-  static Measures measures(List<ScoredAnswer> scored, List<RankedOutcome> ranked) {
+  static Measures measures(List<JudgedAnswer> scored, List<RankedOutcome> ranked) {
     boolean anyInScope = !ranked.isEmpty();
     return new Measures(
         anyInScope ? Ranking.top1Accuracy(ranked) : Double.NaN,
@@ -136,7 +136,7 @@ final class SystemEvaluation {
     List<RankedOutcome> ranked =
         tickets.stream().filter(EvaluatedTicket::inScope).map(EvaluatedTicket::ranked).toList();
     double top1 = ranked.isEmpty() ? Double.NaN : Ranking.top1Accuracy(ranked);
-    List<ScoredAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
+    List<JudgedAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
     ThresholdRow at = ThresholdTable.rows(scored, List.of(threshold)).get(0);
     ServiceRow served = service(tickets, List.of(threshold)).get(0);
     return new CategoryRow(category, tickets.size(), ranked.size(), top1, at.answered(), at.answeredShare(),

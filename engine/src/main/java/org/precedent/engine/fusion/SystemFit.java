@@ -14,7 +14,7 @@ import org.precedent.engine.stats.PlattCalibrator;
 import org.precedent.engine.stats.PlattScaling;
 import org.precedent.engine.fusion.FusionFit.LabelledQuestion;
 import org.precedent.engine.measure.Calibration;
-import org.precedent.engine.measure.ScoredAnswer;
+import org.precedent.engine.measure.JudgedAnswer;
 
 /**
  * Fits one scoring system: a logistic model over candidate rows (right answer or not), then Platt
@@ -68,11 +68,11 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
     }
     LogisticModel model = fitRows(system, usable, rows, everyone);
 
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     int inScope = 0;
     int inScopeRight = 0;
     for (int i = 0; i < usable.size(); i++) {
-      answers.add(new ScoredAnswer(calibration.calibrate(oofLogit[i]), topRight[i]));
+      answers.add(new JudgedAnswer(calibration.calibrate(oofLogit[i]), topRight[i]));
       if (usable.get(i).rightGroup() != null) {
         inScope++;
         inScopeRight += topRight[i] ? 1 : 0;

@@ -22,10 +22,10 @@ public final class Calibration {
    * <p>Brier (1950) sums the squared error over both outcomes, which for two outcomes is exactly twice
    * this value. The one-outcome form is kept because it stays on the same [0, 1] scale as confidence.
    */
-  public static double brierScore(List<ScoredAnswer> answers) {
-    List<ScoredAnswer> all = Inputs.nonEmpty(answers, "Brier score");
+  public static double brierScore(List<JudgedAnswer> answers) {
+    List<JudgedAnswer> all = Inputs.nonEmpty(answers, "Brier score");
     double sum = 0.0;
-    for (ScoredAnswer a : all) {
+    for (JudgedAnswer a : all) {
       double diff = a.confidence() - (a.correct() ? 1.0 : 0.0);
       sum += diff * diff;
     }
@@ -33,7 +33,7 @@ public final class Calibration {
   }
 
   /** Expected calibration error with {@value #DEFAULT_BINS} equal-width bins. */
-  public static double expectedCalibrationError(List<ScoredAnswer> answers) {
+  public static double expectedCalibrationError(List<JudgedAnswer> answers) {
     return expectedCalibrationError(answers, DEFAULT_BINS);
   }
 
@@ -41,7 +41,7 @@ public final class Calibration {
    * Expected calibration error (Guo et al. 2017): sum over bins of (bin count / total) times
    * |accuracy - mean confidence|, with equal-width bins ((m-1)/M, m/M].
    */
-  public static double expectedCalibrationError(List<ScoredAnswer> answers, int bins) {
+  public static double expectedCalibrationError(List<JudgedAnswer> answers, int bins) {
     List<ReliabilityBin> diagram = reliabilityDiagram(answers, bins);
     long total = 0;
     double weighted = 0.0;
@@ -56,15 +56,15 @@ public final class Calibration {
    * The bins of a reliability diagram, lowest first, empty bins included so that a plot shows where
    * the system never ventures.
    */
-  public static List<ReliabilityBin> reliabilityDiagram(List<ScoredAnswer> answers, int bins) {
+  public static List<ReliabilityBin> reliabilityDiagram(List<JudgedAnswer> answers, int bins) {
     if (bins < 1) {
       throw new IllegalArgumentException("a reliability diagram needs at least one bin; got " + bins);
     }
-    List<ScoredAnswer> all = Inputs.nonEmpty(answers, "reliability diagram");
+    List<JudgedAnswer> all = Inputs.nonEmpty(answers, "reliability diagram");
     int[] count = new int[bins];
     int[] right = new int[bins];
     double[] confidenceSum = new double[bins];
-    for (ScoredAnswer a : all) {
+    for (JudgedAnswer a : all) {
       int m = binOf(a.confidence(), bins);
       count[m]++;
       confidenceSum[m] += a.confidence();

@@ -22,9 +22,9 @@ public final class Discrimination {
    * @return the area in [0, 1], or NaN when every answer is right or every answer is wrong: with one
    *     class missing there is no pair to compare, so the area is undefined rather than 0 or 1
    */
-  public static double auroc(List<ScoredAnswer> answers) {
-    List<ScoredAnswer> all = Inputs.nonEmpty(answers, "AUROC");
-    ScoredAnswer[] sorted = all.toArray(new ScoredAnswer[0]);
+  public static double auroc(List<JudgedAnswer> answers) {
+    List<JudgedAnswer> all = Inputs.nonEmpty(answers, "AUROC");
+    JudgedAnswer[] sorted = all.toArray(new JudgedAnswer[0]);
     Arrays.sort(sorted, (a, b) -> Double.compare(a.confidence(), b.confidence()));
     int n = sorted.length;
     long right = 0;

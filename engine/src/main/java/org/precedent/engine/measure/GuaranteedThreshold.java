@@ -29,7 +29,7 @@ public final class GuaranteedThreshold {
   private GuaranteedThreshold() {}
 
   /** {@link #recommend(List, double, double)} with target 0.95 and delta 0.05. */
-  public static ThresholdRecommendation recommend(List<ScoredAnswer> heldOut) {
+  public static ThresholdRecommendation recommend(List<JudgedAnswer> heldOut) {
     return recommend(heldOut, DEFAULT_TARGET_PRECISION, DEFAULT_DELTA);
   }
 
@@ -38,14 +38,14 @@ public final class GuaranteedThreshold {
    * least 1 - {@code delta}, provided the held-out answers are a fair sample of future tickets.
    */
   public static ThresholdRecommendation recommend(
-      List<ScoredAnswer> heldOut, double targetPrecision, double delta) {
+      List<JudgedAnswer> heldOut, double targetPrecision, double delta) {
     Inputs.open01(targetPrecision, "target precision");
     Inputs.open01(delta, "delta");
-    List<ScoredAnswer> all = Inputs.nonEmpty(heldOut, "threshold recommendation");
+    List<JudgedAnswer> all = Inputs.nonEmpty(heldOut, "threshold recommendation");
     int n = all.size();
     double[] confidence = new double[n];
     boolean[] correct = new boolean[n];
-    ScoredAnswer[] ascending = all.toArray(new ScoredAnswer[0]);
+    JudgedAnswer[] ascending = all.toArray(new JudgedAnswer[0]);
     Arrays.sort(ascending, (a, b) -> Double.compare(a.confidence(), b.confidence()));
     for (int i = 0; i < n; i++) {
       confidence[i] = ascending[i].confidence();

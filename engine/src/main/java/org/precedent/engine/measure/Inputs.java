@@ -34,8 +34,8 @@ final class Inputs {
   }
 
   /** The answers ordered by confidence, highest first; ties keep their input order. */
-  static ScoredAnswer[] byConfidenceDescending(List<ScoredAnswer> answers) {
-    ScoredAnswer[] sorted = answers.toArray(new ScoredAnswer[0]);
+  static JudgedAnswer[] byConfidenceDescending(List<JudgedAnswer> answers) {
+    JudgedAnswer[] sorted = answers.toArray(new JudgedAnswer[0]);
     Arrays.sort(sorted, (a, b) -> Double.compare(b.confidence(), a.confidence()));
     return sorted;
   }

@@ -15,8 +15,8 @@ public final class SelectivePrediction {
    * threshold, lowest coverage) down to the lowest (everything answered). Answers with equal
    * confidence are accepted or refused together, as a threshold cannot split them.
    */
-  public static List<RiskCoveragePoint> riskCoverageCurve(List<ScoredAnswer> answers) {
-    ScoredAnswer[] sorted = Inputs.byConfidenceDescending(Inputs.nonEmpty(answers, "risk-coverage curve"));
+  public static List<RiskCoveragePoint> riskCoverageCurve(List<JudgedAnswer> answers) {
+    JudgedAnswer[] sorted = Inputs.byConfidenceDescending(Inputs.nonEmpty(answers, "risk-coverage curve"));
     int n = sorted.length;
     List<RiskCoveragePoint> curve = new ArrayList<>();
     int wrong = 0;
@@ -44,8 +44,8 @@ public final class SelectivePrediction {
    * count grows linearly. Without ties this is exactly the plain formula; with ties the result no
    * longer depends on input order.
    */
-  public static double aurc(List<ScoredAnswer> answers) {
-    ScoredAnswer[] sorted = Inputs.byConfidenceDescending(Inputs.nonEmpty(answers, "AURC"));
+  public static double aurc(List<JudgedAnswer> answers) {
+    JudgedAnswer[] sorted = Inputs.byConfidenceDescending(Inputs.nonEmpty(answers, "AURC"));
     int n = sorted.length;
     double sumOfRisks = 0.0;
     int before = 0;
@@ -75,7 +75,7 @@ public final class SelectivePrediction {
    * {@code targetPrecision}; 0 when no threshold does. This is the empirical value on the given data,
    * with no allowance for sampling error; see {@link GuaranteedThreshold} for one with a guarantee.
    */
-  public static double coverageAtPrecision(List<ScoredAnswer> answers, double targetPrecision) {
+  public static double coverageAtPrecision(List<JudgedAnswer> answers, double targetPrecision) {
     Inputs.closed01(targetPrecision, "target precision");
     double best = 0.0;
     for (RiskCoveragePoint p : riskCoverageCurve(answers)) {

@@ -13,7 +13,7 @@ public final class ThresholdTable {
   private ThresholdTable() {}
 
   /** One row per threshold, in the order given. */
-  public static List<ThresholdRow> rows(List<ScoredAnswer> answers, List<Double> thresholds) {
+  public static List<ThresholdRow> rows(List<JudgedAnswer> answers, List<Double> thresholds) {
     return rows(Inputs.nonEmpty(answers, "threshold table"), 0, thresholds);
   }
 
@@ -21,9 +21,9 @@ public final class ThresholdTable {
    * One row per threshold, in the order given, when {@code neverAnswered} further tickets go to a
    * person whatever their confidence: they count among the tickets, never among the answered.
    */
-  public static List<ThresholdRow> rows(List<ScoredAnswer> answers, int neverAnswered,
+  public static List<ThresholdRow> rows(List<JudgedAnswer> answers, int neverAnswered,
       List<Double> thresholds) {
-    List<ScoredAnswer> all = List.copyOf(answers);
+    List<JudgedAnswer> all = List.copyOf(answers);
     if (neverAnswered < 0 || all.size() + neverAnswered == 0) {
       throw new IllegalArgumentException("threshold table needs at least one ticket; got "
           + all.size() + " answerable and " + neverAnswered + " never answered");
@@ -35,7 +35,7 @@ public final class ThresholdTable {
       double threshold = Inputs.closed01(Objects.requireNonNull(t, "threshold is null"), "threshold");
       int answered = 0;
       int right = 0;
-      for (ScoredAnswer a : all) {
+      for (JudgedAnswer a : all) {
         if (a.confidence() >= threshold) {
           answered++;
           if (a.correct()) {

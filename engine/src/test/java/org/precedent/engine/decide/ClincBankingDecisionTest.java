@@ -20,7 +20,7 @@ import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.measure.Calibration;
-import org.precedent.engine.measure.ScoredAnswer;
+import org.precedent.engine.measure.JudgedAnswer;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.engine.rerank.ClincDomain;
@@ -103,7 +103,7 @@ class ClincBankingDecisionTest {
       // each outcome from its own confidence ("consistency resampling", Broecker and Smith 2007),
       // 95th percentile of 1,000 draws. The fused ECE may exceed that noise by at most 0.05, the
       // product's calibration target (DEVELOPERS.md).
-      List<ScoredAnswer> scored = runs.get(2).tickets().stream().map(t -> t.scored()).toList();
+      List<JudgedAnswer> scored = runs.get(2).tickets().stream().map(t -> t.scored()).toList();
       double noise = consistencyNoise(scored, 1000, 0.95);
       System.out.printf(Locale.ROOT, "fused ECE %.3f; 95%% of a calibrated model's ECE on these "
           + "confidences is below %.3f%n", fused.expectedCalibrationError(), noise);
@@ -114,11 +114,11 @@ class ClincBankingDecisionTest {
   }
 
   /** The {@code quantile} of ECE over {@code draws} outcome sets drawn from the confidences. */
-  static double consistencyNoise(List<ScoredAnswer> scored, int draws, double quantile) {
+  static double consistencyNoise(List<JudgedAnswer> scored, int draws, double quantile) {
     java.util.Random random = new java.util.Random(20071); // fixed seed: the bound is reproducible
     double[] ece = new double[draws];
     for (int d = 0; d < draws; d++) {
-      List<ScoredAnswer> drawn = scored.stream().map(a -> new ScoredAnswer(a.confidence(),
+      List<JudgedAnswer> drawn = scored.stream().map(a -> new JudgedAnswer(a.confidence(),
           random.nextDouble() < a.confidence())).toList();
       ece[d] = Calibration.expectedCalibrationError(drawn);
     }

@@ -8,7 +8,7 @@ import java.util.List;
 import java.util.stream.IntStream;
 import org.junit.jupiter.api.Test;
 import org.precedent.engine.measure.RiskCoveragePoint;
-import org.precedent.engine.measure.ScoredAnswer;
+import org.precedent.engine.measure.JudgedAnswer;
 import org.precedent.engine.measure.SelectivePrediction;
 
 class CurvesTest {
@@ -37,7 +37,7 @@ class CurvesTest {
       tickets.add(new EvaluatedTicket("t" + i, "c", true, i % 3 == 0 ? 2 : 1, i / 500.0));
     }
     SystemRun run = new SystemRun("A", tickets);
-    List<ScoredAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
+    List<JudgedAnswer> scored = tickets.stream().map(EvaluatedTicket::scored).toList();
     List<RiskCoveragePoint> full = SelectivePrediction.riskCoverageCurve(scored);
     List<RiskCoveragePoint> kept = Fixtures.report("d", run).systems().get(0).riskCoverage();
     assertEquals(500, full.size());

@@ -9,7 +9,7 @@ import java.util.OptionalDouble;
 import org.junit.jupiter.api.Test;
 import org.precedent.engine.measure.Calibration;
 import org.precedent.engine.measure.Discrimination;
-import org.precedent.engine.measure.ScoredAnswer;
+import org.precedent.engine.measure.JudgedAnswer;
 import org.precedent.engine.measure.SelectivePrediction;
 import org.precedent.engine.measure.ThresholdRecommendation;
 import org.precedent.engine.measure.ThresholdRow;
@@ -47,7 +47,7 @@ class EvaluationReportsTest {
     assertEquals(1.0 / 6, m.coverageAt90(), EPS);
 
     // And the same numbers as the measures library computes on the same answers.
-    List<ScoredAnswer> scored = Fixtures.sixTickets("A").tickets().stream().map(EvaluatedTicket::scored).toList();
+    List<JudgedAnswer> scored = Fixtures.sixTickets("A").tickets().stream().map(EvaluatedTicket::scored).toList();
     assertEquals(Calibration.brierScore(scored), m.brierScore(), 0.0);
     assertEquals(Discrimination.auroc(scored), m.auroc(), 0.0);
     assertEquals(SelectivePrediction.aurc(scored), m.aurc(), 0.0);

@@ -12,8 +12,8 @@ import org.junit.jupiter.api.Test;
 
 class DiscriminationTest {
 
-  private static ScoredAnswer a(double confidence, boolean correct) {
-    return new ScoredAnswer(confidence, correct);
+  private static JudgedAnswer a(double confidence, boolean correct) {
+    return new JudgedAnswer(confidence, correct);
   }
 
   @Test
@@ -24,7 +24,7 @@ class DiscriminationTest {
     double[] score = {.9, .8, .7, .6, .55, .54, .53, .52, .51, .505,
                       .4, .39, .38, .37, .36, .35, .34, .33, .30, .1};
     String cls = "ppnpppnnpnpnpnnnpnpn";
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < score.length; i++) {
       answers.add(a(score[i], cls.charAt(i) == 'p'));
     }
@@ -38,7 +38,7 @@ class DiscriminationTest {
     // reports area W = 0.893. Exact value with ties as 1/2, hand-computed: 2642 / (58 * 51).
     int[] normal = {33, 6, 6, 11, 2};
     int[] abnormal = {3, 2, 2, 11, 33};
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int rating = 1; rating <= 5; rating++) {
       double confidence = rating / 5.0;
       for (int i = 0; i < normal[rating - 1]; i++) {
@@ -58,15 +58,15 @@ class DiscriminationTest {
     // Definition (Hanley and McNeil 1982): P(right scores above wrong) + 1/2 P(tie), counted over all
     // pairs here, independently of the rank-sum route.
     Random random = new Random(7);
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 300; i++) {
       double confidence = random.nextInt(21) / 20.0; // coarse grid: many ties
       answers.add(a(confidence, random.nextDouble() < 0.3 + 0.5 * confidence));
     }
     double wins = 0;
     long pairs = 0;
-    for (ScoredAnswer r : answers) {
-      for (ScoredAnswer w : answers) {
+    for (JudgedAnswer r : answers) {
+      for (JudgedAnswer w : answers) {
         if (r.correct() && !w.correct()) {
           pairs++;
           wins += r.confidence() > w.confidence() ? 1 : r.confidence() == w.confidence() ? 0.5 : 0;

@@ -13,9 +13,9 @@ import org.junit.jupiter.api.Test;
 
 class GuaranteedThresholdTest {
 
-  private static void add(List<ScoredAnswer> to, int count, double confidence, int right) {
+  private static void add(List<JudgedAnswer> to, int count, double confidence, int right) {
     for (int i = 0; i < count; i++) {
-      to.add(new ScoredAnswer(confidence, i < right));
+      to.add(new JudgedAnswer(confidence, i < right));
     }
   }
 
@@ -25,7 +25,7 @@ class GuaranteedThresholdTest {
     // precision 0.5; at 0.9 it accepts exactly the 500 right ones. n = 1000, so SGR (Geifman and
     // El-Yaniv 2017, Algorithm 1) runs ceil(log2 1000) = 10 steps at delta/10 = 0.005, and the
     // Clopper-Pearson bound for 500/500 is 0.005^(1/500) (Clopper and Pearson 1934, x = n case).
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     add(answers, 500, 0.9, 500);
     add(answers, 500, 0.5, 0);
     Collections.shuffle(answers, new Random(1));
@@ -47,7 +47,7 @@ class GuaranteedThresholdTest {
     // Accepting down to 0.6 gives 537/600 = 0.895 < 0.95, so no bound there can reach 0.95; the answer
     // is 0.9 if 297/300 certifies. The bound is checked against the binomial tail summed directly:
     // P(X >= 297; 300, L) = 0.005 (Clopper and Pearson 1934).
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     add(answers, 300, 0.9, 297);
     add(answers, 300, 0.6, 240);
     add(answers, 400, 0.2, 0);
@@ -67,9 +67,9 @@ class GuaranteedThresholdTest {
     // the tail at 0.95 is at most alpha, Clopper and Pearson 1934). The largest such j is found here by
     // direct binomial summation; the grid tries the top 100, 200, ..., 1000 answers (K = 10), so it
     // lands on the largest multiple of 100 at or below 700 + j.
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 1000; i++) {
-      answers.add(new ScoredAnswer(1.0 - i / 1000.0, i < 700));
+      answers.add(new JudgedAnswer(1.0 - i / 1000.0, i < 700));
     }
     int j = 0;
     while (BinomialTail.atLeast(700, 700 + j + 1, 0.95) <= 0.005) {
@@ -93,9 +93,9 @@ class GuaranteedThresholdTest {
     // El-Yaniv 2017) would only look at higher thresholds and fail. The top 480 (468 right) do
     // certify, and the grid tries them (k = 8 of K = 10): a union bound over thresholds fixed
     // before the labels holds for any curve (Angelopoulos et al. 2021, Learn then Test).
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 600; i++) {
-      answers.add(new ScoredAnswer(1.0 - i / 1000.0, i >= 12 && i < 480));
+      answers.add(new JudgedAnswer(1.0 - i / 1000.0, i >= 12 && i < 480));
     }
     assertTrue(BinomialTail.atLeast(288, 300, 0.95) > 0.005, "the top half must not certify");
     assertTrue(BinomialTail.atLeast(468, 480, 0.95) <= 0.005, "the top 480 must certify");
@@ -112,7 +112,7 @@ class GuaranteedThresholdTest {
     // (the Clopper-Pearson bound of 200/200 at 0.05/9 is 0.00556^(1/200) = 0.974). Any threshold in
     // (0.5, 0.99604178] accepts exactly those 200; the shortest decimal there within 0.001 of the
     // certified confidence is 0.996.
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     add(answers, 200, 0.99604178, 200);
     add(answers, 100, 0.5, 0);
     ThresholdRecommendation r = GuaranteedThreshold.recommend(answers);
@@ -126,9 +126,9 @@ class GuaranteedThresholdTest {
   void saysTooFewWhenEvenAnAllRightSampleCannotCertify() {
     // 20 answers, all right. ceil(log2 20) = 5, corrected delta 0.01. The all-right bound
     // 0.01^(1/m) (Clopper and Pearson 1934) first reaches 0.95 at m = 90 (ln 0.01 / ln 0.95 = 89.78).
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 20; i++) {
-      answers.add(new ScoredAnswer(0.5 + i / 100.0, true));
+      answers.add(new JudgedAnswer(0.5 + i / 100.0, true));
     }
     ThresholdRecommendation r = GuaranteedThreshold.recommend(answers);
     assertEquals(ThresholdRecommendation.Status.TOO_FEW, r.status());
@@ -144,9 +144,9 @@ class GuaranteedThresholdTest {
   void saysNotCertifiedWhenTheConfidentAnswersAreTooOftenWrong() {
     // By construction every prefix has precision <= 0.5 (alternating right and wrong from the top),
     // with n = 400 above the 104 needed at delta 0.05/9, so the reason is errors, not sample size.
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 400; i++) {
-      answers.add(new ScoredAnswer(1.0 - i / 400.0, i % 2 == 1));
+      answers.add(new JudgedAnswer(1.0 - i / 400.0, i % 2 == 1));
     }
     ThresholdRecommendation r = GuaranteedThreshold.recommend(answers);
     assertEquals(ThresholdRecommendation.Status.NOT_CERTIFIED, r.status());
@@ -159,10 +159,10 @@ class GuaranteedThresholdTest {
     // As SGR's binary search (Geifman and El-Yaniv 2017), ceil(log2 n) thresholds; delta is split over them.
     Random random = new Random(3);
     for (int n : new int[] {1, 2, 3, 5, 8, 9, 100, 1023, 1024, 1025}) {
-      List<ScoredAnswer> answers = new ArrayList<>();
+      List<JudgedAnswer> answers = new ArrayList<>();
       for (int i = 0; i < n; i++) {
         double confidence = random.nextDouble();
-        answers.add(new ScoredAnswer(confidence, random.nextDouble() < confidence));
+        answers.add(new JudgedAnswer(confidence, random.nextDouble() < confidence));
       }
       int expectedSteps = Math.max(1, (int) Math.ceil(Math.log(n) / Math.log(2) - 1e-12));
       ThresholdRecommendation r = GuaranteedThreshold.recommend(answers, 0.6, 0.1);
@@ -173,7 +173,7 @@ class GuaranteedThresholdTest {
 
   @Test
   void defaultsAreNinetyFivePercentPrecisionAtDeltaFivePercent() {
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     add(answers, 200, 0.95, 199);
     add(answers, 100, 0.4, 50);
     assertEquals(GuaranteedThreshold.recommend(answers, 0.95, 0.05), GuaranteedThreshold.recommend(answers));
@@ -181,7 +181,7 @@ class GuaranteedThresholdTest {
 
   @Test
   void rejectsEmptyInputAndParametersOutsideTheOpenUnitInterval() {
-    List<ScoredAnswer> one = List.of(new ScoredAnswer(0.5, true));
+    List<JudgedAnswer> one = List.of(new JudgedAnswer(0.5, true));
     IllegalArgumentException e =
         assertThrows(IllegalArgumentException.class, () -> GuaranteedThreshold.recommend(List.of()));
     assertTrue(e.getMessage().contains("empty"));

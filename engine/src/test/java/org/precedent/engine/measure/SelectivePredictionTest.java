@@ -10,12 +10,12 @@ import org.junit.jupiter.api.Test;
 class SelectivePredictionTest {
   private static final double EPS = 1e-12;
 
-  private static ScoredAnswer a(double confidence, boolean correct) {
-    return new ScoredAnswer(confidence, correct);
+  private static JudgedAnswer a(double confidence, boolean correct) {
+    return new JudgedAnswer(confidence, correct);
   }
 
   /** Confidences 0.9 .. 0.5, outcomes right, wrong, right, right, wrong; given out of order. */
-  private static List<ScoredAnswer> fiveAnswers() {
+  private static List<JudgedAnswer> fiveAnswers() {
     return List.of(a(0.6, true), a(0.9, true), a(0.5, false), a(0.8, false), a(0.7, true));
   }
 
@@ -30,8 +30,8 @@ class SelectivePredictionTest {
   void aurcAveragesOverTheOrdersOfTiedAnswers() {
     // Two tied answers at 0.9 (one right, one wrong), then a wrong one at 0.5. Plain formula for each
     // order, by hand: right-first 0, 1/2, 2/3 -> 7/18; wrong-first 1, 1/2, 2/3 -> 13/18. Mean = 5/9.
-    List<ScoredAnswer> rightFirst = List.of(a(0.9, true), a(0.9, false), a(0.5, false));
-    List<ScoredAnswer> wrongFirst = List.of(a(0.9, false), a(0.9, true), a(0.5, false));
+    List<JudgedAnswer> rightFirst = List.of(a(0.9, true), a(0.9, false), a(0.5, false));
+    List<JudgedAnswer> wrongFirst = List.of(a(0.9, false), a(0.9, true), a(0.5, false));
     assertEquals(5.0 / 9.0, SelectivePrediction.aurc(rightFirst), EPS);
     assertEquals(5.0 / 9.0, SelectivePrediction.aurc(wrongFirst), EPS);
   }
@@ -41,7 +41,7 @@ class SelectivePredictionTest {
     // Geifman, Uziel and El-Yaniv (2019): for error rate r and a confidence ranking every right answer
     // above every wrong one, AURC* ~= r + (1 - r) ln(1 - r) (from memory). The discrete sum differs
     // from that integral by O(1/n); n = 10,000 and r = 0.2 give 0.021485...
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     int n = 10_000;
     for (int i = 0; i < n; i++) {
       answers.add(a(1.0 - (double) i / n, i < 8_000));
@@ -82,7 +82,7 @@ class SelectivePredictionTest {
     // k = 51 -> 49/51 = 0.961; k = 52 -> 0.942; k = 54 -> 0.907; k = 55 -> 0.891; k = 100 -> 0.89.
     // So 99% -> coverage 0.20, 95% -> 0.51, 90% -> 0.54 (the "precision >= target" reading is the
     // project's, common practice without a single source).
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 1; i <= 100; i++) {
       boolean wrong = i == 21 || (i >= 51 && i <= 60);
       answers.add(a((101 - i) / 100.0, !wrong));
@@ -94,7 +94,7 @@ class SelectivePredictionTest {
 
   @Test
   void coverageIsZeroWhenEvenTheMostConfidentAnswerIsWrong() {
-    List<ScoredAnswer> answers = List.of(a(0.99, false), a(0.5, true), a(0.4, true));
+    List<JudgedAnswer> answers = List.of(a(0.99, false), a(0.5, true), a(0.4, true));
     assertEquals(0.0, SelectivePrediction.coverageAtPrecision(answers, 0.9), EPS);
   }
 

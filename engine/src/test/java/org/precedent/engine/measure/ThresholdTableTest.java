@@ -11,14 +11,14 @@ import org.junit.jupiter.api.Test;
 class ThresholdTableTest {
   private static final double EPS = 1e-9;
 
-  private static List<ScoredAnswer> newcombeSample() {
+  private static List<JudgedAnswer> newcombeSample() {
     // 263 answers at 0.8 of which 81 right (Newcombe's 81/263 example), 37 right answers at 0.3.
-    List<ScoredAnswer> answers = new ArrayList<>();
+    List<JudgedAnswer> answers = new ArrayList<>();
     for (int i = 0; i < 263; i++) {
-      answers.add(new ScoredAnswer(0.8, i < 81));
+      answers.add(new JudgedAnswer(0.8, i < 81));
     }
     for (int i = 0; i < 37; i++) {
-      answers.add(new ScoredAnswer(0.3, true));
+      answers.add(new JudgedAnswer(0.3, true));
     }
     return answers;
   }
@@ -58,13 +58,13 @@ class ThresholdTableTest {
   @Test
   void thresholdIsInclusive() {
     // Convention of this project: reply when confidence >= threshold (no outside source).
-    List<ThresholdRow> rows = ThresholdTable.rows(List.of(new ScoredAnswer(0.7, true)), List.of(0.7));
+    List<ThresholdRow> rows = ThresholdTable.rows(List.of(new JudgedAnswer(0.7, true)), List.of(0.7));
     assertEquals(1, rows.get(0).answered());
   }
 
   @Test
   void rejectsEmptyInputsAndThresholdsOutsideTheUnitInterval() {
-    List<ScoredAnswer> one = List.of(new ScoredAnswer(0.5, true));
+    List<JudgedAnswer> one = List.of(new JudgedAnswer(0.5, true));
     assertThrows(IllegalArgumentException.class, () -> ThresholdTable.rows(List.of(), List.of(0.5)));
     assertThrows(IllegalArgumentException.class, () -> ThresholdTable.rows(one, List.of()));
     assertThrows(IllegalArgumentException.class, () -> ThresholdTable.rows(one, List.of(1.5)));

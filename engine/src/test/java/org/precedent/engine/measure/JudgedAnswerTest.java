@@ -7,26 +7,26 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 
-class ScoredAnswerTest {
+class JudgedAnswerTest {
 
   @Test
   void rejectsNaNConfidenceSayingSo() {
     IllegalArgumentException e =
-        assertThrows(IllegalArgumentException.class, () -> new ScoredAnswer(Double.NaN, true));
+        assertThrows(IllegalArgumentException.class, () -> new JudgedAnswer(Double.NaN, true));
     assertTrue(e.getMessage().contains("NaN"));
   }
 
   @Test
   void rejectsConfidenceOutsideTheUnitInterval() {
-    assertThrows(IllegalArgumentException.class, () -> new ScoredAnswer(-0.01, false));
-    assertThrows(IllegalArgumentException.class, () -> new ScoredAnswer(1.0000001, true));
-    assertThrows(IllegalArgumentException.class, () -> new ScoredAnswer(Double.POSITIVE_INFINITY, true));
+    assertThrows(IllegalArgumentException.class, () -> new JudgedAnswer(-0.01, false));
+    assertThrows(IllegalArgumentException.class, () -> new JudgedAnswer(1.0000001, true));
+    assertThrows(IllegalArgumentException.class, () -> new JudgedAnswer(Double.POSITIVE_INFINITY, true));
   }
 
   @Test
   void acceptsBothEndsOfTheUnitInterval() {
-    assertDoesNotThrow(() -> new ScoredAnswer(0.0, false));
-    assertDoesNotThrow(() -> new ScoredAnswer(1.0, true));
+    assertDoesNotThrow(() -> new JudgedAnswer(0.0, false));
+    assertDoesNotThrow(() -> new JudgedAnswer(1.0, true));
   }
 
   @Test
