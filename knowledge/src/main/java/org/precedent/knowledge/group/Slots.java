@@ -54,14 +54,7 @@ public final class Slots {
     if (base.isEmpty()) {
       return Optional.empty();
     }
-    int[] agree = new int[base.size()];
-    for (String reply : replies) {
-      for (GlobalAlignment.Column<String> c : ALIGN.align(base, words(reply)).columns()) {
-        if (c.paired() && c.first().equals(c.second())) {
-          agree[c.firstIndex()]++;
-        }
-      }
-    }
+    int[] agree = agreement(base, replies);
     StringBuilder out = new StringBuilder();
     int slots = 0;
     int slotted = 0;
@@ -84,6 +77,44 @@ public final class Slots {
       return Optional.empty();
     }
     return Optional.of(out.toString());
+  }
+
+  private static int[] agreement(List<String> base, List<String> replies) {
+    int[] agree = new int[base.size()];
+    for (String reply : replies) {
+      for (GlobalAlignment.Column<String> c : ALIGN.align(base, words(reply)).columns()) {
+        if (c.paired() && c.first().equals(c.second())) {
+          agree[c.firstIndex()]++;
+        }
+      }
+    }
+    return agree;
+  }
+
+  /**
+   * Whether sending the canonical reply to the customer whose own reply was {@code own} would
+   * give them another customer's detail: a canonical word at a slot position that {@code own}
+   * does not hold there. Measures what a template prevents; false when the group has no template.
+   */
+  public static boolean wouldSendAnothersDetail(String canonical, List<String> replies,
+      String own) {
+    if (of(canonical, replies).isEmpty()) {
+      return false;
+    }
+    List<String> base = words(canonical);
+    int[] agree = agreement(base, replies);
+    boolean[] same = new boolean[base.size()];
+    for (GlobalAlignment.Column<String> c : ALIGN.align(base, words(own)).columns()) {
+      if (c.paired() && c.first().equals(c.second())) {
+        same[c.firstIndex()] = true;
+      }
+    }
+    for (int i = 0; i < base.size(); i++) {
+      if (agree[i] < AGREEMENT * replies.size() && !same[i]) {
+        return true;
+      }
+    }
+    return false;
   }
 
   /** The names of the slots a text holds, in order; empty for a text with none. */
