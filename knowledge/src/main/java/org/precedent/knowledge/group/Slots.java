@@ -55,13 +55,16 @@ public final class Slots {
       return Optional.empty();
     }
     int[] agree = agreement(base, replies);
+    // The template keeps the canonical reply's own text between slots, spacing and punctuation
+    // included; only the words of each slot are replaced by its marker.
+    List<int[]> spans = spans(canonical);
     StringBuilder out = new StringBuilder();
     int slots = 0;
     int slotted = 0;
+    int copied = 0;
     int i = 0;
     while (i < base.size()) {
       if (agree[i] >= AGREEMENT * replies.size()) {
-        append(out, base.get(i));
         i++;
         continue;
       }
@@ -71,8 +74,11 @@ public final class Slots {
       }
       slots++;
       slotted += i - start;
-      append(out, OPEN + name(base.subList(start, i)) + CLOSE);
+      out.append(canonical, copied, spans.get(start)[0])
+          .append(OPEN).append(name(base.subList(start, i))).append(CLOSE);
+      copied = spans.get(i - 1)[1];
     }
+    out.append(canonical.substring(copied));
     if (slots == 0 || slots > MAX_SLOTS || slotted > MAX_SLOTTED * base.size()) {
       return Optional.empty();
     }
@@ -141,12 +147,13 @@ public final class Slots {
     return words;
   }
 
-  private static void append(StringBuilder out, String word) {
-    boolean punctuation = word.length() == 1 && !Character.isLetterOrDigit(word.charAt(0));
-    if (out.length() > 0 && !punctuation) {
-      out.append(' ');
+  private static List<int[]> spans(String text) {
+    List<int[]> spans = new ArrayList<>();
+    Matcher m = WORD.matcher(text);
+    while (m.find()) {
+      spans.add(new int[] {m.start(), m.end()});
     }
-    out.append(word);
+    return spans;
   }
 
   private static final Pattern DAY = Pattern.compile(

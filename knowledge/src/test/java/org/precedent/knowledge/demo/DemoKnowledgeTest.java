@@ -172,6 +172,8 @@ class DemoKnowledgeTest {
       replies.put(g.id(), g.ticketIds().stream().map(id -> tickets.get(id).reply()).toList());
     }
     long templates = groups.stream().filter(g -> g.template() != null).count();
+    groups.stream().filter(g -> g.template() != null).forEach(g -> System.out.printf(
+        "slots benchmark: template of %s (%d replies): %s%n", g.id(), g.size(), g.template()));
     long slots = groups.stream().mapToLong(g -> org.precedent.knowledge.group.Slots
         .names(g.template()).size()).sum();
     int before = 0;
