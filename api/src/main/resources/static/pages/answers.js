@@ -9,6 +9,8 @@
     human_only: 'This kind of question is answered by people only.',
     answer_incomplete: 'The best answer lacks a detail that was removed from past replies; '
       + 'a person fills it in.',
+    needs_customer_details: 'Past customers got this answer with their own details (a day, an '
+      + 'amount, a reference); a person fills in this customer\'s.',
     below_threshold: 'Precedent is not sure enough to reply on its own.',
   };
 
@@ -35,6 +37,11 @@
       box.append(el('h3', {}, 'The reply'), el('p', { class: 'answer' }, d.reply));
     } else {
       box.append(el('p', { id: 'reason' }, REASONS[d.reason] || ('Reason: ' + d.reason)));
+    }
+    if (d.template) {
+      // Text only (el sets textContent): the marked slots are shown as typed, never as HTML.
+      box.append(el('h3', {}, 'The answer, with the places to fill in marked'),
+        el('p', { class: 'answer template', id: 'template' }, d.template));
     }
     if (d.explanation) box.append(el('p', { class: 'figures' }, d.explanation));
     if (d.truncated) box.append(el('p', { class: 'figures' }, 'The question was long: only its start was read.'));

@@ -24,10 +24,13 @@ import org.precedent.engine.explain.Explanation;
  * @param truncated    the question was longer than the model reads and was cut
  * @param modelVersion the model version that decided
  * @param candidates   ranked answers, best first
+ * @param template     the best answer with its slots marked (knowledge.group.Slots) when past
+ *                     customers got it with their own details, else absent
  */
 public record DecisionView(String outcome, String reason, String question, String answerGroup,
     String reply, double confidence, double threshold, String caution, String safetyTopic,
-    String explanation, Explanation why, boolean truncated, String modelVersion, List<CandidateView> candidates) {
+    String explanation, Explanation why, boolean truncated, String modelVersion, List<CandidateView> candidates,
+    String template) {
 
   public static DecisionView of(Decision d, String modelVersion, int limit) {
     List<CandidateView> shown = new java.util.ArrayList<>();
@@ -38,6 +41,8 @@ public record DecisionView(String outcome, String reason, String question, Strin
         d.reason() == null ? null : d.reason().name().toLowerCase(Locale.ROOT), d.question(),
         d.answerGroup(), d.reply(), d.confidence(), d.threshold(), d.caution(),
         d.safety() == null ? null : d.safety().topic(), d.explanation(), d.why(), d.truncated(),
-        modelVersion, List.copyOf(shown));
+        modelVersion, List.copyOf(shown),
+        // The best answer's template, its slots marked, for the agent to fill in.
+        d.candidates().isEmpty() ? null : d.candidates().get(0).candidate().group().template());
   }
 }

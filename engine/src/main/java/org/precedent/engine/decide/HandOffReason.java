@@ -13,6 +13,11 @@ public enum HandOffReason {
    * lacks what a person must fill in, however sure the model is that it fits.
    */
   ANSWER_INCOMPLETE,
+  /**
+   * The best answer's past replies differ in a few places (a day, an amount, a reference): its
+   * template has slots for this customer's own details, which a person must fill in.
+   */
+  NEEDS_CUSTOMER_DETAILS,
   /** The confidence is below the threshold in force. */
   BELOW_THRESHOLD
 }

@@ -126,6 +126,17 @@ public final class Pipeline {
               + String.join(", ", missing) + "): a person should fill it in before it is sent.",
               parts), truncated);
     }
+    List<String> slots = SafetyGate.slots(best);
+    if (!slots.isEmpty()) {
+      parts.add(0, Explanation.fact("answer template", best.template()));
+      return new Decision(Outcome.HAND_OFF, HandOffReason.NEEDS_CUSTOMER_DETAILS, question,
+          groupId, null, confidence, threshold, null, null, candidates,
+          why(HandOffReason.NEEDS_CUSTOMER_DETAILS, confidence, "The best answer (" + groupId
+              + ") differs between past customers in " + slots.size() + " place"
+              + (slots.size() == 1 ? "" : "s") + " (" + String.join(", ", slots)
+              + "): a person should fill in this customer's details: " + best.template(),
+              parts), truncated);
+    }
     if (confidence < threshold) {
       return new Decision(Outcome.HAND_OFF, HandOffReason.BELOW_THRESHOLD, question, groupId,
           null, confidence, threshold, null, null, candidates, why(HandOffReason.BELOW_THRESHOLD,

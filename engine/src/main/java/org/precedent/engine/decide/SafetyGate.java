@@ -6,6 +6,7 @@ import org.precedent.engine.safety.SafetyFinding;
 import org.precedent.engine.safety.SafetyPolicy;
 import org.precedent.knowledge.clean.Placeholders;
 import org.precedent.knowledge.group.AnswerGroup;
+import org.precedent.knowledge.group.Slots;
 
 /**
  * The gate in front of every automatic reply: the safety rules (the question's words, the ticket's
@@ -41,10 +42,19 @@ public final class SafetyGate {
     return best == null ? List.of() : Placeholders.in(best.canonical());
   }
 
+  /**
+   * The slots of the best answer's template (knowledge.group.Slots): when there are any, the
+   * answer needs this customer's details and is not sent automatically ({@link
+   * HandOffReason#NEEDS_CUSTOMER_DETAILS}).
+   */
+  public static List<String> slots(AnswerGroup best) {
+    return best == null ? List.of() : Slots.names(best.template());
+  }
+
   /** Whether the service would hand the question off whatever the confidence. */
   public static boolean handsOff(SafetyPolicy safety, String question, String category,
       AnswerGroup best) {
     return (safety != null && check(safety, question, category, best).isPresent())
-        || !missingDetails(best).isEmpty();
+        || !missingDetails(best).isEmpty() || !slots(best).isEmpty();
   }
 }

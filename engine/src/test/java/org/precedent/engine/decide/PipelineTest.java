@@ -221,6 +221,30 @@ class PipelineTest {
   }
 
   @Test
+  void anAnswerWithSlotsForTheCustomersDetailsIsHandedOffWhateverTheConfidence(@TempDir Path dir)
+      throws Exception {
+    // Invented replies of a council desk: the same answer, each with the customer's own day.
+    DataDir data = new DataDir(dir.resolve("bins"));
+    Path csv = Files.writeString(dir.resolve("bins.csv"), """
+        id,question,reply
+        1,what day are my bins collected,Your garden waste is collected every other week on Tuesday from April to November so put the brown bin out by 7am.
+        2,which day is bin collection,Your garden waste is collected every other week on Friday from April to November so put the brown bin out by 7am.
+        3,when do the bins get collected,Your garden waste is collected every other week on Monday from April to November so put the brown bin out by 7am.
+        """);
+    Ingestor.of(data, AnswerGrouper.standard()).ingest(csv, ExportFormat.CSV,
+        ColumnMapping.of(Map.of("id", "id", "question", "question", "reply", "reply")),
+        Progress.silent(), Progress.silent());
+    try (Retriever bins = Retriever.open(Knowledge.open(data).orElseThrow())) {
+      Decision d = Assembly.pipeline(bins, scorer, fusion, SafetyPolicy.defaults(),
+          Thresholds.global(0)).decide("what day are my bins collected", null);
+      assertEquals(Outcome.HAND_OFF, d.outcome());
+      assertEquals(HandOffReason.NEEDS_CUSTOMER_DETAILS, d.reason(), d.explanation());
+      assertNull(d.reply());
+      assertTrue(d.explanation().contains("on ⟦slot:day⟧ from April"), d.explanation());
+    }
+  }
+
+  @Test
   void theDesksDeclaredNumberStaysInTheAnswerSoItCanBeSent() {
     Decision d = Assembly.pipeline(callBackDeclared, scorer, fusion,
         SafetyPolicy.defaults(), Thresholds.global(0)).decide("no water at all today", null);

@@ -12,13 +12,30 @@ import java.util.Objects;
  * @param label     the label that defined the group, or null when found from the replies
  * @param category  the most frequent category among its tickets, or null
  * @param ticketIds the tickets answered with it, sorted
+ * @param template  the answer with the places where its replies differ marked as slots
+ *                  ({@link Slots}), or null when they agree; absent from files written before
+ *                  slots, which read as null
  */
 public record AnswerGroup(String id, String canonical, String label, String category,
-    List<String> ticketIds) {
+    List<String> ticketIds, String template) {
   public AnswerGroup {
     Objects.requireNonNull(id, "id");
     Objects.requireNonNull(canonical, "canonical");
     ticketIds = List.copyOf(ticketIds);
+    if (template != null && !Slots.hasSlots(template)) {
+      throw new IllegalArgumentException("group " + id + ": template holds no slot: " + template);
+    }
+  }
+
+  /** A group whose replies agree: no template. */
+  public AnswerGroup(String id, String canonical, String label, String category,
+      List<String> ticketIds) {
+    this(id, canonical, label, category, ticketIds, null);
+  }
+
+  /** The answer to show: the template when the replies differ, else the canonical reply. */
+  public String answer() {
+    return template != null ? template : canonical;
   }
 
   /** How many past tickets this answer resolved. */

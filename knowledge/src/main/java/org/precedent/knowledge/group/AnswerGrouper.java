@@ -171,7 +171,10 @@ public final class AnswerGrouper {
     String category = mostFrequent(members.stream().map(Ticket::category)
         .filter(Objects::nonNull).toList(), Comparator.naturalOrder());
     List<String> ids = members.stream().map(Ticket::id).sorted().toList();
-    return new AnswerGroup(id != null ? id : idFor(canonical), canonical, label, category, ids);
+    String template = Slots.of(canonical, members.stream().map(Ticket::reply).toList())
+        .orElse(null);
+    return new AnswerGroup(id != null ? id : idFor(canonical), canonical, label, category, ids,
+        template);
   }
 
   private static Grouping finish(List<AnswerGroup> groups, List<String> oneOffs, String method) {

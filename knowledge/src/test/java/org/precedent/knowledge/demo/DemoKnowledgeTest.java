@@ -160,4 +160,42 @@ class DemoKnowledgeTest {
         .map(IngestReport.ProposedDetail::value).toList();
     assertEquals(List.of("01632 960999"), proposed);
   }
+
+  @Test
+  void slotsOnTheDemoDataKeepOtherCustomersDetailsOutOfAutomaticReplies() {
+    List<AnswerGroup> groups = knowledge.grouping().groups();
+    Map<String, AnswerGroup> byId = groups.stream()
+        .collect(Collectors.toMap(AnswerGroup::id, Function.identity()));
+    Map<String, Ticket> tickets = knowledge.tickets();
+    Map<String, List<String>> replies = new HashMap<>();
+    for (AnswerGroup g : groups) {
+      replies.put(g.id(), g.ticketIds().stream().map(id -> tickets.get(id).reply()).toList());
+    }
+    long templates = groups.stream().filter(g -> g.template() != null).count();
+    groups.stream().filter(g -> g.template() != null).forEach(g -> System.out.printf(
+        "slots benchmark: template of %s (%d replies): %s%n", g.id(), g.size(), g.template()));
+    long slots = groups.stream().mapToLong(g -> org.precedent.knowledge.group.Slots
+        .names(g.template()).size()).sum();
+    int before = 0;
+    int after = 0;
+    for (Ticket t : heldOut.tickets()) {
+      var candidates = retriever.retrieve(t.question(),
+          org.precedent.knowledge.retrieve.RetrievalSettings.standard()).candidates();
+      if (candidates.isEmpty()) {
+        continue;
+      }
+      AnswerGroup best = byId.get(candidates.get(0).group().id());
+      if (org.precedent.knowledge.group.Slots.wouldSendAnothersDetail(best.canonical(),
+          replies.get(best.id()), t.reply())) {
+        before++;
+        if (best.template() == null) {
+          after++; // a template is never sent as it stands, so only an untemplated group counts
+        }
+      }
+    }
+    System.out.printf("slots benchmark: %d of %d groups are templates, %d slots; held-out tickets"
+        + " whose best answer holds another customer's detail: %d before, %d after%n",
+        templates, groups.size(), slots, before, after);
+    assertEquals(0, after);
+  }
 }
