@@ -10,7 +10,7 @@ import org.springframework.stereotype.Component;
 
 /**
  * How much text the audit tables' columns hold, read from the database itself, so that
- * {@code schema.sql} is the one place that sets it. A value that does not fit is refused before
+ * the migrations ({@code db/migration}) are the one place that sets it. A value that does not fit is refused before
  * anything changes, with a problem naming the request's field, rather than failing in the insert.
  */
 @Component
@@ -51,6 +51,6 @@ public final class AuditColumns {
       }
     }
     throw new IllegalStateException("the service database has no column " + table + "." + column
-        + " (schema.sql makes it)");
+        + " (the migrations make it)");
   }
 }

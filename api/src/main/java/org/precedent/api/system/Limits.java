@@ -2,7 +2,7 @@ package org.precedent.api.system;
 
 /**
  * Sizes the service accepts; longer input is refused with a problem naming the field. What the
- * audit records keep is set by their columns in schema.sql ({@link AuditColumns}).
+ * audit records keep is set by their columns in the migrations ({@link AuditColumns}).
  */
 public final class Limits {
   /** Longest question, in characters: far beyond any real ticket, short of abuse. */

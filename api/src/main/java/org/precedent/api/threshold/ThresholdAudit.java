@@ -9,15 +9,14 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.TreeMap;
 import org.precedent.api.system.AuditColumns;
+import org.precedent.api.system.ServiceSchema;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.measure.ThresholdDecimals;
 import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.store.DataDir;
-import org.springframework.core.io.ClassPathResource;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.jdbc.datasource.SingleConnectionDataSource;
-import org.springframework.jdbc.datasource.init.ScriptUtils;
 
 /**
  * The audit of threshold changes: one row per change (who, when, before, after, why) in the
@@ -52,7 +51,7 @@ public final class ThresholdAudit {
     String url = "jdbc:h2:file:" + dir.serviceDatabase() + ";WRITE_DELAY=0";
     try (Connection c = DriverManager.getConnection(url, "sa", "")) {
       createTables(c);
-      // The column widths as schema.sql sets them, read from the database as the service does.
+      // The column widths as the migrations set them, read from the database as the service does.
       AuditColumns audit = new AuditColumns(new JdbcTemplate(new SingleConnectionDataSource(c,
           true)));
       int reasonWidth = audit.width("threshold_change", "reason");
@@ -95,8 +94,8 @@ public final class ThresholdAudit {
 
   /** The service's own schema, so that a change made before the service ever ran is kept too. */
   private static void createTables(Connection c) {
-    // Spring's script reader, as the service's own start uses: it knows SQL comments.
-    ScriptUtils.executeSqlScript(c, new ClassPathResource("schema.sql"));
+    // The same migrations as the service's own start runs.
+    ServiceSchema.migrate(new SingleConnectionDataSource(c, true));
   }
 
   /** Every digit of each threshold, at least four decimals: the audit names the rule exactly. */

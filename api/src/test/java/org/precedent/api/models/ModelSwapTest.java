@@ -154,7 +154,7 @@ class ModelSwapTest {
     String before = active();
     int audited = http().get("/api/v1/models", Caller.MANAGER).json().get("activations").size();
     String other = before.equals("v-0001") ? "v-0002" : "v-0001";
-    // model_activation.reason is VARCHAR(2000) in schema.sql.
+    // model_activation.reason is VARCHAR(2000) in V1__init.sql.
     String tooLong = "because ".repeat(250) + "x";
     for (String path : List.of("/api/v1/models/" + other + "/activation",
         "/api/v1/models/rollback")) {

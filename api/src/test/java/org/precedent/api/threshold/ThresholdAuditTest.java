@@ -79,7 +79,7 @@ class ThresholdAuditTest {
   @Test
   void aReasonLongerThanTheAuditKeepsIsRefusedAndNothingChanges() throws Exception {
     DataDir dir = new DataDir(tmp.resolve("data"));
-    // schema.sql gives the reason 2,000 characters; the width is read from the database.
+    // V1__init.sql gives the reason 2,000 characters; the width is read from the database.
     IOException e = assertThrows(IOException.class, () -> ThresholdAudit.applyFromCommandLine(
         dir, Thresholds.global(0.5), "sam", "x".repeat(2001)));
     assertTrue(e.getMessage().contains("at most 2000 characters"), e.getMessage());

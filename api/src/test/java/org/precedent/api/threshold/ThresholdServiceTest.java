@@ -154,7 +154,7 @@ class ThresholdServiceTest {
   void moreCategoriesThanTheAuditRecordHoldsIs400AndChangesNothing() throws Exception {
     String file = thresholdsFile();
     int audited = http().get("/api/v1/threshold/changes", Caller.MANAGER).json().size();
-    // threshold_change.new_value is VARCHAR(4000) in schema.sql: 30 names of 150 characters
+    // threshold_change.new_value is VARCHAR(4000) in V1__init.sql: 30 names of 150 characters
     // do not fit.
     Map<String, Double> perCategory = new TreeMap<>();
     for (int i = 0; i < 30; i++) {
