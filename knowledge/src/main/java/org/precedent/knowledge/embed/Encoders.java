@@ -5,8 +5,10 @@ import java.util.Optional;
 
 /**
  * Which sentence encoder a data directory's knowledge is embedded with: a setting, {@code
- * -Dprecedent.encoder=NAME} or an ingest option, whose default is bge-small-en-v1.5 (quantized) and
- * whose value {@code none} keeps BM25-only operation for a team that cannot ship the model.
+ * -Dprecedent.encoder=NAME}, whose value {@code none} keeps BM25-only operation for a team that
+ * cannot ship the model. The default is {@code none} while decisions do not yet read the vectors
+ * (the dense features in fusion are the next step): embedding costs ingest time, and it buys
+ * nothing until then.
  */
 public final class Encoders {
   /** The system property that chooses the encoder. */
@@ -19,13 +21,13 @@ public final class Encoders {
   private Encoders() {}
 
   /**
-   * The encoder a setting names: blank for the default, {@link #NONE} for none.
+   * The encoder a setting names: blank for the default (none, for now), {@link #NONE} for none.
    *
    * @throws IllegalArgumentException naming the setting and the encoders there are
    */
   public static Optional<SentenceEncoder.Model> named(String setting) {
     if (setting == null || setting.isBlank()) {
-      return Optional.of(KNOWN.get(0));
+      return Optional.empty();
     }
     String name = setting.strip();
     if (name.equals(NONE)) {
