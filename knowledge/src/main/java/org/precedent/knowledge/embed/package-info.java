@@ -5,8 +5,9 @@
  * runs by an {@link org.precedent.knowledge.embed.SentenceEncoder.Identity} (model name and SHA-256
  * of the model file) so a stored generation can later record which encoder made its vectors. {@link
  * org.precedent.knowledge.embed.NativeLibraries} decides where the two native libraries are unpacked.
- * The package depends on ONNX Runtime, DJL's tokenizers and {@code knowledge.io}; nothing else of
- * Precedent depends on it yet but the {@code benchmark encoder} command (the dense retrieval leg is
- * the next step).
+ * {@link org.precedent.knowledge.embed.Encoders} reads which encoder is chosen, and {@link
+ * org.precedent.knowledge.embed.QuestionVectors} embeds the questions of a new generation, taking
+ * over the vectors the previous one holds. The package depends on ONNX Runtime, DJL's tokenizers,
+ * {@code knowledge.ticket} and {@code knowledge.io}; ingest and retrieval use it.
  */
 package org.precedent.knowledge.embed;

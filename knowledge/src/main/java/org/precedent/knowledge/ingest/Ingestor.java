@@ -19,7 +19,12 @@ import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.group.Grouping;
 import org.precedent.knowledge.io.Progress;
+import org.precedent.knowledge.embed.Encoders;
+import org.precedent.knowledge.embed.QuestionVectors;
+import org.precedent.knowledge.embed.SentenceEncoder;
+import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.retrieve.TicketIndex;
+import org.precedent.knowledge.store.Manifest;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import org.precedent.knowledge.ticket.Ticket;
@@ -37,6 +42,8 @@ public final class Ingestor {
   private final DataDir dataDir;
   private final TextCleaner cleaner;
   private final AnswerGrouper grouper;
+  /** The encoder of the dense leg, or empty for BM25 only. */
+  private final Optional<SentenceEncoder.Model> encoder;
 
   /**
    * A contact detail in the replies of this many answer groups is proposed as the organisation's
@@ -45,10 +52,22 @@ public final class Ingestor {
    */
   static final int PROPOSE_FROM_GROUPS = 3;
 
+  /** An ingestor embedding with the encoder {@code -Dprecedent.encoder} names ({@link Encoders}). */
   public Ingestor(DataDir dataDir, TextCleaner cleaner, AnswerGrouper grouper) {
+    this(dataDir, cleaner, grouper, Encoders.fromSetting());
+  }
+
+  private Ingestor(DataDir dataDir, TextCleaner cleaner, AnswerGrouper grouper,
+      Optional<SentenceEncoder.Model> encoder) {
     this.dataDir = dataDir;
     this.cleaner = cleaner;
     this.grouper = grouper;
+    this.encoder = encoder;
+  }
+
+  /** The same ingestor with another encoder for the dense leg, or none (BM25 only). */
+  public Ingestor withEncoder(Optional<SentenceEncoder.Model> model) {
+    return new Ingestor(dataDir, cleaner, grouper, model);
   }
 
   /**
@@ -158,6 +177,15 @@ public final class Ingestor {
 
   /** Stores parsed tickets: merge by id, regroup, re-index, switch atomically. */
   public IngestReport store(ParsedExport parsed, Progress indexing) throws IOException {
+    return store(parsed, indexing, Progress.silent());
+  }
+
+  /**
+   * Stores parsed tickets: merge by id, regroup, embed the questions the current generation holds
+   * no vector of by this encoder (with {@code embedding} progress), re-index, switch atomically.
+   */
+  public IngestReport store(ParsedExport parsed, Progress indexing, Progress embedding)
+      throws IOException {
     try (FileLock lock = dataDir.lock()) {
       Map<String, Ticket> all = new LinkedHashMap<>();
       List<String> sources = new ArrayList<>();
@@ -178,7 +206,7 @@ public final class Ingestor {
       List<Ticket> tickets = List.copyOf(all.values());
       Grouping grouping = grouper.group(tickets);
       if (!parsed.tickets().isEmpty()) {
-        Knowledge.replace(dataDir, tickets, grouping, sources, TicketIndex.builder(indexing));
+        write(current, tickets, grouping, sources, indexing, embedding);
       }
       List<IngestReport.GroupSize> sizes = new ArrayList<>();
       for (AnswerGroup g : grouping.groups()) {
@@ -187,6 +215,34 @@ public final class Ingestor {
       return new IngestReport(parsed.file(), parsed.read(), stored, updated, parsed.rejected(),
           parsed.problems(), tickets.size(), sizes,
           grouping.oneOffs().size(), grouping.method(), proposals(parsed, grouping));
+    }
+  }
+
+  /** A new generation, with the dense leg's vectors when there is an encoder. */
+  private void write(Optional<Knowledge> current, List<Ticket> tickets, Grouping grouping,
+      List<String> sources, Progress indexing, Progress embedding) throws IOException {
+    if (encoder.isEmpty()) {
+      Knowledge.replace(dataDir, tickets, grouping, sources, TicketIndex.builder(indexing));
+      return;
+    }
+    try (SentenceEncoder e = SentenceEncoder.open(encoder.get())) {
+      Knowledge.replace(dataDir, tickets, grouping, sources, TicketIndex.builder(indexing,
+          embedding, e, reusable(current, e.identity())));
+    }
+  }
+
+  /** The current generation's vectors, when the same encoder made them. */
+  private static Map<String, QuestionVectors.Stored> reusable(Optional<Knowledge> current,
+      SentenceEncoder.Identity identity) throws IOException {
+    if (current.isEmpty() || current.get().manifest().vectors() == null) {
+      return Map.of();
+    }
+    Manifest.Vectors made = current.get().manifest().vectors();
+    if (!made.encoder().equals(identity.model()) || !made.sha256().equals(identity.sha256())) {
+      return Map.of();
+    }
+    try (Retriever r = Retriever.open(current.get())) {
+      return r.storedVectors();
     }
   }
 

@@ -46,7 +46,9 @@ public final class Knowledge {
   /** Writes a generation's search index into an empty directory. */
   @FunctionalInterface
   public interface IndexBuilder {
-    void build(Path indexDirectory, List<Ticket> tickets, Grouping grouping) throws IOException;
+    /** @return what made the question vectors the index holds, or null when it holds none */
+    Manifest.Vectors build(Path indexDirectory, List<Ticket> tickets, Grouping grouping)
+        throws IOException;
   }
 
   private Knowledge(Path generation, Map<String, Ticket> tickets, Grouping grouping, Manifest manifest) {
@@ -99,9 +101,9 @@ public final class Knowledge {
           nonClosing(out), grouping));
       Path indexDirectory = generation.resolve(INDEX);
       Files.createDirectory(indexDirectory);
-      index.build(indexDirectory, tickets, grouping);
+      Manifest.Vectors vectors = index.build(indexDirectory, tickets, grouping);
       Manifest manifest = new Manifest(java.time.Instant.now(), tickets.size(),
-          grouping.groups().size(), grouping.oneOffs().size(), grouping.method(), sources);
+          grouping.groups().size(), grouping.oneOffs().size(), grouping.method(), sources, vectors);
       // The manifest is written last: a generation without one was never finished.
       AtomicFiles.write(generation.resolve("manifest.json"), out -> JSON.writerWithDefaultPrettyPrinter()
           .writeValue(nonClosing(out), manifest));

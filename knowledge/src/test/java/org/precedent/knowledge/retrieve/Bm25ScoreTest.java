@@ -45,7 +45,7 @@ class Bm25ScoreTest {
         .map(t -> new AnswerGroup(t.label(), t.reply(), t.label(), null, List.of(t.id()))).toList();
     Grouping grouping = new Grouping(groups, List.of(), "test");
     Path index = Files.createDirectory(dir.resolve("index"));
-    TicketIndex.build(index, tickets, grouping.groupOfTicket(), Progress.silent());
+    TicketIndex.build(index, tickets, grouping.groupOfTicket(), Map.of(), Progress.silent());
 
     try (Retriever retriever = Retriever.open(index, grouping)) {
       Retrieval r = retriever.retrieve("meter leak", RetrievalSettings.standard());

@@ -35,19 +35,22 @@ class KnowledgeTest {
       assertEquals(TICKETS, tickets);
       assertEquals(ONE_OFFS, grouping);
       Files.writeString(index.resolve("segments"), "2 tickets");
+      return new Manifest.Vectors("an encoder", "ab12", 3);
     });
     Knowledge k = Knowledge.open(dir).orElseThrow();
     assertEquals(dir.knowledge().resolve("gen-000001"), k.generation());
     assertEquals("2 tickets", Files.readString(k.indexDirectory().resolve("segments")));
     assertEquals(List.of("T-1", "T-2"), List.copyOf(k.tickets().keySet()));
     assertEquals(2, k.manifest().tickets());
+    // What the builder says made the vectors is in the manifest.
+    assertEquals(new Manifest.Vectors("an encoder", "ab12", 3), k.manifest().vectors());
   }
 
   @Test
   void anIndexThatFailsLeavesThePreviousGenerationInForce(@TempDir Path tmp) throws Exception {
     DataDir dir = new DataDir(tmp);
     Knowledge.replace(dir, TICKETS.subList(0, 1), new Grouping(List.of(), List.of("T-1"), "test"),
-        List.of("a.csv"), (index, tickets, grouping) -> { });
+        List.of("a.csv"), (index, tickets, grouping) -> null);
     IOException e = assertThrows(IOException.class, () -> Knowledge.replace(dir, TICKETS, ONE_OFFS,
         List.of("a.csv", "b.csv"), (index, tickets, grouping) -> {
           throw new IOException("disk full while indexing");
