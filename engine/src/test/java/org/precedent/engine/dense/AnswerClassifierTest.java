@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -14,6 +15,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.nd4j.linalg.api.buffer.DataType;
 import org.nd4j.linalg.api.ndarray.INDArray;
 import org.nd4j.linalg.factory.Nd4j;
+import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.datasets.Clinc150;
 import org.precedent.knowledge.embed.SentenceEncoder;
@@ -63,6 +65,24 @@ class AnswerClassifierTest {
     AnswerClassifier back = AnswerClassifier.loadIfPresent(tmp);
     assertEquals(c.probabilities(vectors.get(5)), back.probabilities(vectors.get(5)));
     assertThrows(IllegalArgumentException.class, () -> c.probabilities(new float[3]));
+  }
+
+  /** A damaged or hand-edited dense.json is refused, naming the file; none at all means none. */
+  @Test
+  void aTamperedFileIsRefusedByName(@TempDir Path tmp) throws Exception {
+    assertEquals(null, AnswerClassifier.loadIfPresent(tmp));
+    Path file = tmp.resolve(AnswerClassifier.FILE);
+    Files.writeString(file, "{\"encoder\": \"x\", \"encoderSha256\": \"0\", ");
+    ModelLoadException cut = assertThrows(ModelLoadException.class,
+        () -> AnswerClassifier.loadIfPresent(tmp));
+    assertTrue(cut.getMessage().contains(file.toString()), cut.getMessage());
+    // Well-formed JSON whose shapes disagree (two groups, one bias).
+    Files.writeString(file, "{\"encoder\": \"x\", \"encoderSha256\": \"0\", \"groups\": "
+        + "[\"a\", \"b\"], \"mean\": [0], \"scale\": [1], \"weights\": [[1, 2]], "
+        + "\"bias\": [0], \"lambda\": 0.001}");
+    ModelLoadException shapes = assertThrows(ModelLoadException.class,
+        () -> AnswerClassifier.loadIfPresent(tmp));
+    assertTrue(shapes.getMessage().contains("2 groups"), shapes.getMessage());
   }
 
   /**

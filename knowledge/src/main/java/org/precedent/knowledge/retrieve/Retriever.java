@@ -75,7 +75,10 @@ public final class Retriever implements Closeable {
     this.searcher = new IndexSearcher(reader);
     this.searcher.setSimilarity(TicketIndex.similarity());
     this.groups = grouping.byId();
-    int n = reader.maxDoc();
+    this.vectors = readVectors(reader, reader.maxDoc());
+    // Only the dense leg needs every ticket's id and group at hand: a BM25-only index opens as
+    // fast as it did.
+    int n = vectors.length;
     this.docIds = new String[n];
     this.docGroups = new String[n];
     StoredFields stored = reader.storedFields();
@@ -85,9 +88,8 @@ public final class Retriever implements Closeable {
       docGroups[d] = doc.get(TicketIndex.GROUP);
       docOfId.put(docIds[d], d);
     }
-    this.vectors = readVectors(reader, n);
     Map<String, List<Integer>> byGroup = new LinkedHashMap<>();
-    for (int d = 0; d < n && vectors.length > 0; d++) {
+    for (int d = 0; d < n; d++) {
       if (!docGroups[d].isEmpty()) {
         byGroup.computeIfAbsent(docGroups[d], g -> new ArrayList<>()).add(d);
       }

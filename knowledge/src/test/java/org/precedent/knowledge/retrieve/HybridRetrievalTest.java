@@ -91,10 +91,11 @@ class HybridRetrievalTest {
       assertEquals(1.0, inOwn.proximity().nearest(), 1e-4, "itself, cosine 1");
       out.candidates().stream().filter(c -> c.group().id().equals(groupOf.get(own.id())))
           .forEach(c -> assertTrue(c.proximity().nearest() < 0.9999, "left out: " + c));
+      Map<String, QuestionVectors.Stored> stored = retriever.storedVectors();
       for (Candidate c : in.candidates()) {
         // The nearest cosine is the exact one, over all the group's stored vectors.
         double exact = -1;
-        for (Map.Entry<String, QuestionVectors.Stored> s : retriever.storedVectors().entrySet()) {
+        for (Map.Entry<String, QuestionVectors.Stored> s : stored.entrySet()) {
           if (c.group().id().equals(groupOf.get(s.getKey()))) {
             exact = Math.max(exact, dot(ownVector, s.getValue().vector()));
           }
