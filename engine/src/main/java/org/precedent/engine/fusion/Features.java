@@ -8,8 +8,9 @@ import org.precedent.knowledge.retrieve.Candidate;
 
 /**
  * The features of each candidate answer that fusion learns from: what BM25 says, what the reranker
- * says, what the dense leg says, and how far each candidate stands from the others. Margins and shares matter as much as raw
- * scores: a confident answer is one that stands clear of its runner-up.
+ * says, what the dense leg says, and how far each candidate stands from the others. Margins and
+ * shares matter as much as raw scores: a confident answer is one that stands clear of its
+ * runner-up.
  */
 final class Features {
   /** BM25 features. */
