@@ -23,7 +23,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "evaluate", mixinStandardHelpOptions = true,
     description = {"Measures the model on held-out tickets and recommends a threshold.",
         // picocli formats descriptions: a percent sign is written %%.
-        "It compares BM25 alone, the reranker alone and the fused system side by side on held-out "
+        "It compares BM25 alone, the dense leg alone, the reranker alone, fusion without the reranker "
+            + "and the fused system side by side on held-out "
             + "resolved tickets (never ingested). The recommended threshold is the lowest one whose "
             + "automatic replies reach the target precision with 95%% confidence.",
         "The right answer of each held-out ticket is its label (if a label column is mapped) or "

@@ -1,5 +1,6 @@
 package org.precedent.engine.candidates;
 
+import java.util.Collections;
 import java.util.List;
 import org.precedent.engine.rerank.AnswerScore;
 import org.precedent.knowledge.retrieve.Candidate;
@@ -11,14 +12,24 @@ import org.precedent.knowledge.retrieve.Retrieval;
  *
  * @param retrieval what the candidate source found
  * @param scores    the scorer's scores, in the order of {@code retrieval.candidates()}
+ * @param posterior the dense leg's classifier probability of each candidate's group, same order
+ *                  (all 0 without a dense leg)
  */
-public record CandidateScoring(Retrieval retrieval, List<AnswerScore> scores) {
+public record CandidateScoring(Retrieval retrieval, List<AnswerScore> scores,
+    List<Double> posterior) {
   public CandidateScoring {
     scores = List.copyOf(scores);
-    if (scores.size() != retrieval.candidates().size()) {
-      throw new IllegalArgumentException(scores.size() + " scores for "
-          + retrieval.candidates().size() + " candidates");
+    posterior = List.copyOf(posterior);
+    int n = retrieval.candidates().size();
+    if (scores.size() != n || posterior.size() != n) {
+      throw new IllegalArgumentException(scores.size() + " scores and " + posterior.size()
+          + " probabilities for " + n + " candidates");
     }
+  }
+
+  /** Scored candidates without a dense leg. */
+  public CandidateScoring(Retrieval retrieval, List<AnswerScore> scores) {
+    this(retrieval, scores, Collections.nCopies(retrieval.candidates().size(), 0.0));
   }
 
   public List<Candidate> candidates() {

@@ -2,7 +2,9 @@ package org.precedent.engine.decide;
 
 import org.precedent.engine.candidates.Bm25Candidates;
 import org.precedent.engine.candidates.CandidateStages;
+import org.precedent.engine.candidates.HybridCandidates;
 import org.precedent.engine.candidates.RerankerScores;
+import org.precedent.engine.dense.DenseLeg;
 import org.precedent.engine.fusion.FusionModel;
 import org.precedent.engine.fusion.Ranker;
 import org.precedent.engine.rerank.Scorer;
@@ -17,14 +19,43 @@ import org.precedent.knowledge.retrieve.Retriever;
 public final class Assembly {
   private Assembly() {}
 
-  /** Stages one and two over the knowledge's index and a reranker: what fusion is fitted on. */
+  /** Stages one and two over the knowledge's index and a reranker, BM25 only. */
   public static CandidateStages candidates(Retriever retriever, Scorer reranker) {
-    return new CandidateStages(new Bm25Candidates(retriever), new RerankerScores(reranker));
+    return candidates(retriever, reranker, null);
   }
 
-  /** Every stage, with a fitted fusion model, a safety policy and the thresholds in force. */
+  /**
+   * Stages one and two over the knowledge's index and a reranker: what fusion is fitted on.
+   *
+   * @param dense the dense leg, or null for BM25 only
+   */
+  public static CandidateStages candidates(Retriever retriever, Scorer reranker, DenseLeg dense) {
+    if (dense == null) {
+      return new CandidateStages(new Bm25Candidates(retriever), new RerankerScores(reranker));
+    }
+    return new CandidateStages(new HybridCandidates(retriever, dense.encoder()),
+        new RerankerScores(reranker), dense::probabilities);
+  }
+
+  /** Every stage, BM25 only, with a fitted fusion model, a safety policy and the thresholds. */
   public static Pipeline pipeline(Retriever retriever, Scorer reranker, FusionModel fusion,
       SafetyPolicy safety, Thresholds thresholds) {
-    return new Pipeline(candidates(retriever, reranker), new Ranker(fusion), safety, thresholds);
+    return pipeline(retriever, reranker, null, fusion, safety, thresholds);
+  }
+
+  /**
+   * Every stage, with a fitted fusion model, a safety policy and the thresholds in force.
+   *
+   * @param dense the dense leg, or null for BM25 only; present exactly when fusion learnt from it
+   */
+  public static Pipeline pipeline(Retriever retriever, Scorer reranker, DenseLeg dense,
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds) {
+    if (fusion.dense() != (dense != null)) {
+      throw new IllegalArgumentException(fusion.dense()
+          ? "the fusion model learnt from the dense leg, so decisions need it"
+          : "the fusion model learnt without the dense leg, so decisions must not use it");
+    }
+    return new Pipeline(candidates(retriever, reranker, dense), new Ranker(fusion), safety,
+        thresholds);
   }
 }

@@ -50,7 +50,12 @@ public final class Pipeline {
 
   /** Candidates in one system's order with its confidence (fusion and calibration). */
   public Ranked rank(ScoringSystem system, CandidateScoring scoring) {
-    return ranker.rank(system, scoring.candidates(), scoring.scores());
+    return ranker.rank(system, scoring);
+  }
+
+  /** The scoring systems the model in force has, for side-by-side evaluation. */
+  public java.util.List<ScoringSystem> systems() {
+    return ranker.systems();
   }
 
   /**

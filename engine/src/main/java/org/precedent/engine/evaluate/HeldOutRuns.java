@@ -45,14 +45,15 @@ public final class HeldOutRuns {
   private static List<SystemRun> run(Pipeline pipeline, boolean gate,
       List<HeldOutQuestion> questions, Progress progress) {
     Map<ScoringSystem, List<EvaluatedTicket>> bySystem = new EnumMap<>(ScoringSystem.class);
-    for (ScoringSystem s : ScoringSystem.values()) {
+    List<ScoringSystem> systems = pipeline.systems();
+    for (ScoringSystem s : systems) {
       bySystem.put(s, new ArrayList<>());
     }
     progress.total(questions.size());
     int done = 0;
     for (HeldOutQuestion q : questions) {
       CandidateScoring scoring = pipeline.candidates(q.question(), null);
-      for (ScoringSystem s : ScoringSystem.values()) {
+      for (ScoringSystem s : systems) {
         Ranked ranked = pipeline.rank(s, scoring);
         // Each system would send its own best answer, which the gate looks at too.
         boolean gated = gate && pipeline.gated(q.question(), q.category(),

@@ -2,13 +2,15 @@ package org.precedent.engine.fusion;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.precedent.engine.candidates.CandidateScoring;
 import org.precedent.engine.rerank.AnswerScore;
 import org.precedent.knowledge.retrieve.Candidate;
 
 /**
  * The features of each candidate answer that fusion learns from: what BM25 says, what the reranker
- * says, and how far each candidate stands from the others. Margins and shares matter as much as raw
- * scores: a confident answer is one that stands clear of its runner-up.
+ * says, what the dense leg says, and how far each candidate stands from the others. Margins and
+ * shares matter as much as raw scores: a confident answer is one that stands clear of its
+ * runner-up.
  */
 final class Features {
   /** BM25 features. */
@@ -17,12 +19,20 @@ final class Features {
   /** Reranker features. */
   static final List<String> RERANKER = List.of("rerank_anti_lm", "rerank_per_token",
       "rerank_inverse_rank", "rerank_margin", "rerank_share");
-  /** All features, BM25 first. */
+  /**
+   * Dense-leg features: the cosine of the group's nearest past question and its lead over the
+   * other candidates', the group's share of the nearest past tickets, and the answer classifier's
+   * probability and its lead. All 0 without a dense leg.
+   */
+  static final List<String> DENSE = List.of("dense_nearest", "dense_nearest_margin", "dense_vote",
+      "dense_probability", "dense_probability_margin");
+  /** All features: BM25, reranker, dense. */
   static final List<String> ALL;
 
   static {
     List<String> all = new ArrayList<>(BM25);
     all.addAll(RERANKER);
+    all.addAll(DENSE);
     ALL = List.copyOf(all);
   }
 
@@ -30,16 +40,20 @@ final class Features {
 
   /**
    * One row of {@link #ALL} per candidate, in the candidates' order.
-   *
-   * @param scores the reranker's scores of the candidates' canonical answers, in the same order
    */
-  static double[][] of(List<Candidate> candidates, List<AnswerScore> scores) {
+  static double[][] of(CandidateScoring scoring) {
+    List<Candidate> candidates = scoring.candidates();
+    List<AnswerScore> scores = scoring.scores();
     int n = candidates.size();
     double[] bm25 = new double[n];
     double[] rerank = new double[n];
+    double[] nearest = new double[n];
+    double[] probability = new double[n];
     for (int i = 0; i < n; i++) {
       bm25[i] = candidates.get(i).score();
       rerank[i] = scores.get(i).antiLm();
+      nearest[i] = candidates.get(i).proximity().nearest();
+      probability[i] = scoring.posterior().get(i);
     }
     int[] rerankRank = ranks(rerank);
     double[] bm25Share = softmax(bm25, 1.0);
@@ -52,9 +66,16 @@ final class Features {
           bm25[i], 1.0 / c.rank(), margin(bm25, i), bm25Share[i],
           Math.log1p(c.hits()), Math.log1p(c.group().size()),
           rerank[i], s.perTokenLogLikelihood(), 1.0 / rerankRank[i], margin(rerank, i),
-          rerankShare[i]};
+          rerankShare[i],
+          nearest[i], margin(nearest, i), c.proximity().vote(), probability[i],
+          margin(probability, i)};
     }
     return rows;
+  }
+
+  /** The entries of one row named in {@code names}. */
+  static double[] select(double[] row, List<String> names) {
+    return select(new double[][] {row}, names)[0];
   }
 
   /** The columns of {@code rows} named in {@code names}. */

@@ -41,8 +41,13 @@ public final class FusionFit {
     progress.finish(questions.size());
     List<SystemModel> systems = new ArrayList<>();
     Map<String, Map<String, Double>> validation = new LinkedHashMap<>();
+    // The dense leg's features are learnt from when the source embedded the questions.
+    boolean dense = questions.stream().anyMatch(q -> q.scoring().retrieval().vector() != null);
     for (ScoringSystem system : ScoringSystem.values()) {
-      SystemFit fit = SystemFit.fit(system, questions);
+      if (!system.applies(dense)) {
+        continue;
+      }
+      SystemFit fit = SystemFit.fit(system, dense, questions);
       systems.add(fit.model());
       validation.put(system.name(), fit.validation());
     }
@@ -60,7 +65,7 @@ public final class FusionFit {
   public String summary() {
     StringBuilder s = new StringBuilder("fusion split, out of fold:");
     model.validation().forEach((system, figures) -> {
-      s.append(String.format(Locale.ROOT, "%n  %-8s", system));
+      s.append(String.format(Locale.ROOT, "%n  %-22s", system));
       figures.forEach((k, v) -> s.append(COUNTS.contains(k)
           ? String.format(Locale.ROOT, "  %s %,d", k, Math.round(v))
           : String.format(Locale.ROOT, "  %s %.3f", k, v)));

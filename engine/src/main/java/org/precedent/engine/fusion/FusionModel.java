@@ -13,7 +13,9 @@ import org.precedent.knowledge.io.AtomicFiles;
  * The fitted fusion and calibration of a model version, one {@link SystemModel} per scoring system,
  * saved as {@code fusion.json} beside the reranker's weights.
  *
- * @param systems    the three systems' fitted parts
+ * @param systems    the systems' fitted parts: BM25, the reranker and fused always; with a dense leg
+ *                   the dense system too; fused without the reranker in models trained since it
+ *                   was added
  * @param validation what the fit measured on the fusion split, per system, for reports
  */
 public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Double>> validation) {
@@ -24,15 +26,41 @@ public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Dou
     systems = List.copyOf(systems);
     // Kept in the systems' order, for reports.
     validation = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(validation));
-    for (ScoringSystem s : ScoringSystem.values()) {
+    for (ScoringSystem s : ScoringSystem.ALWAYS) {
       if (systems.stream().noneMatch(m -> m.system() == s)) {
         throw new IllegalArgumentException("fusion model lacks the " + s + " system");
       }
     }
+    boolean dense = systems.stream().anyMatch(m -> m.system() == ScoringSystem.DENSE);
+    for (SystemModel m : systems) {
+      if (!m.features().equals(m.system().features(dense))) {
+        throw new IllegalArgumentException("the " + m.system() + " model was fitted on features "
+            + m.features() + ", but a fusion model " + (dense ? "with" : "without")
+            + " a dense leg needs " + m.system().features(dense));
+      }
+    }
   }
 
+  /** @throws IllegalArgumentException when the model has no such system (see {@link #has}) */
   public SystemModel system(ScoringSystem s) {
-    return systems.stream().filter(m -> m.system() == s).findFirst().orElseThrow();
+    return systems.stream().filter(m -> m.system() == s).findFirst().orElseThrow(
+        () -> new IllegalArgumentException("this model version has no " + s.label()
+            + " system"));
+  }
+
+  /** Whether the model has the system: the dense ones only when trained with a dense leg. */
+  public boolean has(ScoringSystem s) {
+    return systems.stream().anyMatch(m -> m.system() == s);
+  }
+
+  /** Whether the model learnt from the dense leg: decisions must then embed the question. */
+  public boolean dense() {
+    return has(ScoringSystem.DENSE);
+  }
+
+  /** The systems it has, in {@link ScoringSystem} order. */
+  public List<ScoringSystem> fitted() {
+    return java.util.Arrays.stream(ScoringSystem.values()).filter(this::has).toList();
   }
 
   public void save(Path versionDir) throws IOException {

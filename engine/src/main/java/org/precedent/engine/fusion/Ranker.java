@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
+import org.precedent.engine.candidates.CandidateScoring;
 import org.precedent.engine.explain.Explanation;
 import org.precedent.engine.rerank.AnswerScore;
 import org.precedent.engine.stats.PlattCalibrator;
@@ -22,24 +23,32 @@ public final class Ranker {
     return fusion;
   }
 
+  /** The systems the model has, in {@link ScoringSystem} order. */
+  public List<ScoringSystem> systems() {
+    return fusion.fitted();
+  }
+
   /**
-   * @param candidates BM25 candidates, in BM25 order
-   * @param scores     the reranker's scores of their canonical answers, same order
+   * @param scoring the candidates, in retrieval order, with their scores
+   * @throws IllegalArgumentException when the model has no such system
    */
-  public Ranked rank(ScoringSystem system, List<Candidate> candidates, List<AnswerScore> scores) {
+  public Ranked rank(ScoringSystem system, CandidateScoring scoring) {
+    List<Candidate> candidates = scoring.candidates();
+    List<AnswerScore> scores = scoring.scores();
+    SystemModel own = fusion.system(system);
     if (candidates.isEmpty()) {
       return new Ranked(system, List.of(), 0);
     }
-    double[][] all = Features.of(candidates, scores);
+    double[][] all = Features.of(scoring);
     SystemModel fused = fusion.system(ScoringSystem.FUSED);
-    SystemModel own = fusion.system(system);
     double[][] ownRows = Features.select(all, own.features());
     List<ScoredCandidate> scored = new ArrayList<>();
     double[] ownLogit = new double[candidates.size()];
     for (int i = 0; i < candidates.size(); i++) {
       ownLogit[i] = own.model().logit(ownRows[i]);
       scored.add(new ScoredCandidate(candidates.get(i), scores.get(i),
-          Arrays.stream(all[i]).boxed().toList(), fused.model().probability(all[i])));
+          Arrays.stream(all[i]).boxed().toList(),
+          fused.model().probability(Features.select(all[i], fused.features()))));
     }
     int[] order = order(system, ownLogit, scores);
     List<ScoredCandidate> ordered = new ArrayList<>();
@@ -80,7 +89,7 @@ public final class Ranker {
 
   /**
    * Candidate indexes in a system's order: BM25 keeps BM25's order, the reranker sorts by its
-   * anti-LM score, fusion by its logit; ties keep BM25's order.
+   * anti-LM score, the dense leg and fusion by their logits; ties keep retrieval's order.
    */
   public static int[] order(ScoringSystem system, double[] logits, List<AnswerScore> scores) {
     Integer[] order = new Integer[logits.length];
@@ -90,15 +99,19 @@ public final class Ranker {
     Comparator<Integer> by = switch (system) {
       case BM25 -> Comparator.comparingInt(i -> i);
       case RERANKER -> Comparator.comparingDouble(i -> -scores.get(i).antiLm());
-      case FUSED -> Comparator.comparingDouble(i -> -logits[i]);
+      case DENSE, FUSED_WITHOUT_RERANKER, FUSED -> Comparator.comparingDouble(i -> -logits[i]);
     };
     Arrays.sort(order, by.thenComparingInt(i -> i));
     return Arrays.stream(order).mapToInt(Integer::intValue).toArray();
   }
 
   /** The rows of a system's features, one per candidate. */
-  public static double[][] features(ScoringSystem system, List<Candidate> candidates,
-      List<AnswerScore> scores) {
-    return Features.select(Features.of(candidates, scores), system.features());
+  static double[][] features(SystemModel system, CandidateScoring scoring) {
+    return Features.select(Features.of(scoring), system.features());
+  }
+
+  /** The rows of the features named, one per candidate. */
+  static double[][] features(List<String> names, CandidateScoring scoring) {
+    return Features.select(Features.of(scoring), names);
   }
 }

@@ -9,7 +9,8 @@ import org.precedent.knowledge.retrieve.Candidate;
  *
  * @param candidate   the BM25 candidate (group, BM25 score and rank, evidence)
  * @param rerank      the reranker's score of the group's canonical answer
- * @param features    the features fusion used, by name, in {@link ScoringSystem#FUSED} order
+ * @param features    every feature of the candidate, BM25's, the reranker's and the dense leg's, in a fixed order
+ *                    (the names are in each {@link SystemModel})
  * @param probability the fused model's P(this candidate is right), before calibration
  */
 public record ScoredCandidate(Candidate candidate, AnswerScore rerank, List<Double> features,

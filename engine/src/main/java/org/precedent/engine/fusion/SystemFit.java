@@ -30,7 +30,9 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
   private static final int FOLDS = 5;
   private static final long SEED = 20261201L;
 
-  static SystemFit fit(ScoringSystem system, List<LabelledQuestion> questions) {
+  /** @param dense whether the candidates carry the dense leg's features to learn from */
+  static SystemFit fit(ScoringSystem system, boolean dense, List<LabelledQuestion> questions) {
+    List<String> features = system.features(dense);
     List<LabelledQuestion> usable = questions.stream()
         .filter(q -> !q.scoring().candidates().isEmpty()).toList();
     if (usable.size() < 2 * FOLDS) {
@@ -39,7 +41,7 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
     }
     List<double[][]> rows = new ArrayList<>();
     for (LabelledQuestion q : usable) {
-      rows.add(Ranker.features(system, q.scoring().candidates(), q.scoring().scores()));
+      rows.add(Ranker.features(features, q.scoring()));
     }
     int[] folds = CrossFit.folds(usable.stream().map(LabelledQuestion::ticketId).toList(), FOLDS,
         SEED);
@@ -52,7 +54,7 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
           train.add(i);
         }
       }
-      LogisticModel foldModel = fitRows(system, usable, rows, train);
+      LogisticModel foldModel = fitRows(features, usable, rows, train);
       for (int i = 0; i < usable.size(); i++) {
         if (folds[i] == f) {
           int top = top(system, foldModel, rows.get(i), usable.get(i));
@@ -66,7 +68,7 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
     for (int i = 0; i < usable.size(); i++) {
       everyone.add(i);
     }
-    LogisticModel model = fitRows(system, usable, rows, everyone);
+    LogisticModel model = fitRows(features, usable, rows, everyone);
 
     List<JudgedAnswer> answers = new ArrayList<>();
     int inScope = 0;
@@ -86,7 +88,7 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
     return new SystemFit(new SystemModel(system, model, calibration), validation);
   }
 
-  private static LogisticModel fitRows(ScoringSystem system, List<LabelledQuestion> questions,
+  private static LogisticModel fitRows(List<String> features, List<LabelledQuestion> questions,
       List<double[][]> rows, List<Integer> which) {
     List<double[]> x = new ArrayList<>();
     List<Boolean> y = new ArrayList<>();
@@ -101,7 +103,7 @@ record SystemFit(SystemModel model, Map<String, Double> validation) {
     for (int i = 0; i < labels.length; i++) {
       labels[i] = y.get(i);
     }
-    return LogisticRegression.fit(system.features(), x.toArray(new double[0][]), labels);
+    return LogisticRegression.fit(features, x.toArray(new double[0][]), labels);
   }
 
   private static int top(ScoringSystem system, LogisticModel model, double[][] rows,

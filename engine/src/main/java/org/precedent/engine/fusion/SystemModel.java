@@ -18,14 +18,16 @@ public record SystemModel(ScoringSystem system, LogisticModel model, PlattCalibr
     Objects.requireNonNull(system, "system");
     Objects.requireNonNull(model, "model");
     Objects.requireNonNull(calibration, "calibration");
-    if (!model.featureNames().equals(system.features())) {
+    if (!model.featureNames().equals(system.features(false))
+        && !model.featureNames().equals(system.features(true))) {
       throw new IllegalArgumentException("the " + system + " model was fitted on features "
-          + model.featureNames() + ", expected " + system.features());
+          + model.featureNames() + ", expected " + system.features(false) + " or, with a dense "
+          + "leg, " + system.features(true));
     }
   }
 
-  /** Feature names, as the system uses them. */
+  /** Feature names, as the system was fitted on them. */
   public List<String> features() {
-    return system.features();
+    return model.featureNames();
   }
 }

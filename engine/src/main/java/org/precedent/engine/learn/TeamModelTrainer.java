@@ -6,6 +6,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.precedent.engine.decide.Assembly;
+import org.precedent.engine.dense.AnswerClassifier;
+import org.precedent.engine.dense.DenseLeg;
 import org.precedent.engine.fusion.FusionFit;
 import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.rerank.RerankerConfig;
@@ -14,16 +16,18 @@ import org.precedent.engine.rerank.TrainedReranker;
 import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.engine.rerank.store.ModelStore;
 import org.precedent.engine.rerank.train.RerankerTrainer;
+import org.precedent.knowledge.embed.QuestionVectors;
 import org.precedent.knowledge.group.AnswerGroup;
 import org.precedent.knowledge.retrieve.Retriever;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
+import org.precedent.knowledge.store.Manifest;
 import org.precedent.knowledge.ticket.Ticket;
 
 /**
- * Trains a team's model from its stored tickets: the reranker on most grouped tickets, then fusion
- * and calibration on the tickets kept apart ({@link Splits}), one-offs included as questions no
- * answer covers. Writes one model version and makes it active.
+ * Trains a team's model from its stored tickets: the reranker (and, when the knowledge holds question
+ * vectors, the dense leg's answer classifier) on most grouped tickets, then fusion and calibration
+ * on the tickets kept apart ({@link Splits}), one-offs included as questions no answer covers. Writes one model version and makes it active.
  */
 public final class TeamModelTrainer {
   private final DataDir dataDir;
@@ -73,9 +77,23 @@ public final class TeamModelTrainer {
       // Damaged, edited, or made by an earlier release: training again is the remedy.
       return java.util.Optional.empty();
     }
+    if (!denseMatches(knowledge, store.directory(active.get()))) {
+      return java.util.Optional.empty();
+    }
     String fingerprint = org.precedent.engine.rerank.train.DataFingerprint.of(
         rerankerPairs(knowledge));
     return store.dataFingerprint(active.get()).filter(fingerprint::equals).map(f -> active.get());
+  }
+
+  /**
+   * Whether a version's dense leg fits the knowledge: none when it holds no vectors, else a
+   * classifier fitted on vectors of the same encoder file.
+   */
+  private static boolean denseMatches(Knowledge knowledge, Path versionDir) throws IOException {
+    Manifest.Vectors vectors = knowledge.manifest().vectors();
+    AnswerClassifier classifier = AnswerClassifier.loadIfPresent(versionDir);
+    return vectors == null ? classifier == null
+        : classifier != null && vectors.sha256().equals(classifier.encoderSha256());
   }
 
   /** Trains on the knowledge's own split ({@link Splits}). */
@@ -97,13 +115,50 @@ public final class TeamModelTrainer {
     RerankerTrainer trainer = new RerankerTrainer(config, work);
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
     FusionFit fit;
+    AnswerClassifier classifier = null;
     try (Retriever retriever = Retriever.open(knowledge)) {
-      fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model(), 1)), fusion);
+      Manifest.Vectors vectors = knowledge.manifest().vectors();
+      if (vectors != null && retriever.hasVectors()) {
+        classifier = fitClassifier(knowledge, vectors, retriever.storedVectors());
+      }
+      try (DenseLeg dense = classifier == null ? null : DenseLeg.open(vectors, classifier)) {
+        fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model(), 1), dense),
+            fusion);
+      }
     }
-    // The fusion model is written with the version, so that its manifest covers it too.
+    // Fusion and the classifier are written with the version, so that its manifest covers them.
     ModelStore store = new ModelStore(dataDir.models());
-    String version = store.write(trained, fit::save);
+    AnswerClassifier dense = classifier;
+    String version = store.write(trained, dir -> {
+      fit.save(dir);
+      if (dense != null) {
+        dense.save(dir);
+      }
+    });
     store.activate(version);
     return new TrainingReport(version, trained.metrics(), fit.summary());
+  }
+
+  /**
+   * The dense leg's classifier, fitted on the questions the reranker learns from (grouped tickets
+   * outside the fusion split), so that fusion sees its probabilities on questions it was not
+   * fitted on, as a decision will.
+   */
+  static AnswerClassifier fitClassifier(Knowledge knowledge, Manifest.Vectors encoder,
+      Map<String, QuestionVectors.Stored> stored) {
+    Map<String, String> groupOf = knowledge.grouping().groupOfTicket();
+    List<float[]> vectors = new ArrayList<>();
+    List<String> labels = new ArrayList<>();
+    stored.forEach((ticket, v) -> {
+      String group = groupOf.get(ticket);
+      if (group != null && !Splits.isFusionTicket(ticket)) {
+        vectors.add(v.vector());
+        labels.add(group);
+      }
+    });
+    System.err.printf(java.util.Locale.ROOT, "fitting the answer classifier on %,d question "
+        + "vectors of %s%n", vectors.size(), encoder.encoder());
+    return AnswerClassifier.fit(encoder.encoder(), encoder.sha256(), vectors, labels,
+        AnswerClassifier.LAMBDA);
   }
 }

@@ -68,16 +68,16 @@ class PipelineTest {
     callBack = ingestCallBackAnswers(tmp.resolve("call-back"), false);
     callBackDeclared = ingestCallBackAnswers(tmp.resolve("call-back-declared"), true);
     scorer = new Scorer(TinyModel.get().model());
-    List<SystemModel> systems = Arrays.stream(ScoringSystem.values()).map(s -> {
-      double[] weights = new double[s.features().size()];
-      int inverseRank = s.features().indexOf("bm25_inverse_rank");
+    List<SystemModel> systems = Arrays.stream(ScoringSystem.values()).filter(s -> s.applies(false)).map(s -> {
+      double[] weights = new double[s.features(false).size()];
+      int inverseRank = s.features(false).indexOf("bm25_inverse_rank");
       if (inverseRank >= 0) {
         weights[inverseRank] = 2;
       }
       double[] zero = new double[weights.length];
       double[] one = new double[weights.length];
       Arrays.fill(one, 1);
-      return new SystemModel(s, new LogisticModel(s.features(), zero, one, weights, 0, 0),
+      return new SystemModel(s, new LogisticModel(s.features(false), zero, one, weights, 0, 0),
           new PlattCalibrator(-1, 0));
     }).toList();
     fusion = new FusionModel(systems, Map.of());

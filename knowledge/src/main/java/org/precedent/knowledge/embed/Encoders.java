@@ -6,9 +6,8 @@ import java.util.Optional;
 /**
  * Which sentence encoder a data directory's knowledge is embedded with: a setting, {@code
  * -Dprecedent.encoder=NAME}, whose value {@code none} keeps BM25-only operation for a team that
- * cannot ship the model. The default is {@code none} while decisions do not yet read the vectors
- * (the dense features in fusion are the next step): embedding costs ingest time, and it buys
- * nothing until then.
+ * cannot ship the model. The default is bge-small-en-v1.5 (quantized): on CLINC150 banking it lifts
+ * fused top-1 from 0.900 to 0.973 ({@code ClincBankingDecisionTest}), for about 5 ms per question.
  */
 public final class Encoders {
   /** The system property that chooses the encoder. */
@@ -21,13 +20,14 @@ public final class Encoders {
   private Encoders() {}
 
   /**
-   * The encoder a setting names: blank for the default (none, for now), {@link #NONE} for none.
+   * The encoder a setting names: blank for the default (the first of {@link #KNOWN}), {@link #NONE}
+   * for none.
    *
    * @throws IllegalArgumentException naming the setting and the encoders there are
    */
   public static Optional<SentenceEncoder.Model> named(String setting) {
     if (setting == null || setting.isBlank()) {
-      return Optional.empty();
+      return Optional.of(KNOWN.get(0));
     }
     String name = setting.strip();
     if (name.equals(NONE)) {
