@@ -2,33 +2,32 @@ package org.precedent.engine.rerank;
 
 import java.util.ArrayList;
 import java.util.Collections;
+import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.concurrent.ArrayBlockingQueue;
-import java.util.concurrent.BlockingQueue;
-import org.deeplearning4j.nn.graph.ComputationGraph;
-import org.nd4j.linalg.api.ndarray.INDArray;
-import org.precedent.engine.rerank.net.EncodedBatch;
-import org.precedent.engine.rerank.net.LogLikelihoods;
+import java.util.concurrent.Semaphore;
+import org.precedent.engine.rerank.net.InferencePass;
 import org.precedent.engine.rerank.net.PairCodec;
 
 /**
  * Scores candidate answers to a question with a trained reranker.
  *
- * <p>All candidates go through the network in ONE batched forward pass: the question is repeated once per
- * candidate. The anti-LM term of Li et al. 2016 ("A Diversity-Promoting Objective Function for Neural
+ * <p>Scoring runs on {@link InferencePass}, a plain-Java forward pass over the trained network's
+ * parameters that gives DL4J's log-likelihoods (checked against DL4J in {@code InferencePassTest}):
+ * the question is encoded once and shared by all the candidates. The anti-LM term of Li et al. 2016 ("A Diversity-Promoting Objective Function for Neural
  * Conversation Models", NAACL) needs log P(answer) as well; this project has no separate language model,
  * so P(answer) is the same network's probability of the answer given an EMPTY question (the end token
  * alone). Training shows each epoch a share of pairs with their question emptied, so that input means
- * "no question" to the network rather than being out of its experience. Those rows join the same forward
- * pass when the answer is not in the cache yet; the cache is keyed by answer text, since P(answer) does
- * not depend on the question. With lambda 0 they are skipped.
+ * "no question" to the network rather than being out of its experience. That term is computed when
+ * the answer is not in the cache yet; the cache is keyed by answer text, since P(answer) does not
+ * depend on the question. With lambda 0 it is skipped.
  *
- * <p>A DL4J network holds the state of its last pass and is not safe to share between threads, so
- * the scorer keeps copies of it (the same weights), one per pass that may run at once: {@link
- * #copiesFor} by default one per processor, as each pass runs on one native thread. A pass takes an
- * idle copy, or waits for one; a single copy serialises every pass, as one lock did before.
+ * <p>The inference pass is immutable and shared by every thread; the scorer only bounds how many
+ * passes run at once ({@link #copiesFor}, by default one per processor, each pass being one
+ * thread's arithmetic), so that more callers wait rather than share the cores and all finish late.
+ * The weights are read when the scorer is made: a network trained further afterwards needs a new
+ * scorer.
  */
 public final class Scorer {
 
@@ -36,7 +35,8 @@ public final class Scorer {
 
   private final RerankerModel model;
   private final PairCodec codec;
-  private final BlockingQueue<ComputationGraph> idle;
+  private final InferencePass pass;
+  private final Semaphore running;
   private final int copies;
   private final Map<String, Double> answerLogProb = Collections.synchronizedMap(
       new LinkedHashMap<>(256, 0.75f, true) {
@@ -46,14 +46,14 @@ public final class Scorer {
         }
       });
 
-  /** A scorer with {@link #copiesFor} copies of the network: one per processor, by default. */
+  /** A scorer that runs {@link #copiesFor} passes at once: one per processor, by default. */
   public Scorer(RerankerModel model) {
     this(model, copiesFor(Runtime.getRuntime().availableProcessors()));
   }
 
   /**
-   * @param copies how many passes may run at once, each on its own copy of the network (the
-   *               model's own network is the first); at least 1
+   * @param copies how many passes may run at once (the name is from when each needed its own copy
+   *               of the DL4J network); at least 1
    */
   public Scorer(RerankerModel model, int copies) {
     if (copies < 1) {
@@ -62,11 +62,8 @@ public final class Scorer {
     this.model = model;
     this.codec = model.codec();
     this.copies = copies;
-    this.idle = new ArrayBlockingQueue<>(copies);
-    idle.add(model.network());
-    for (int i = 1; i < copies; i++) {
-      idle.add(copyOf(model.network()));
-    }
+    this.pass = InferencePass.of(model.network());
+    this.running = new Semaphore(copies, true);
   }
 
   /** The system property that sets how many scoring passes run at once. */
@@ -116,61 +113,57 @@ public final class Scorer {
     for (String a : answers) {
       encodedAnswers.add(codec.answer(a));
     }
-    List<PairCodec.Encoded> questions = new ArrayList<>(Collections.nCopies(answers.size(), q));
-    List<PairCodec.Encoded> rowAnswers = new ArrayList<>(encodedAnswers);
-    Map<String, Double> answerLm = new java.util.HashMap<>();
-    Map<String, Integer> lmRows = new LinkedHashMap<>();
-    if (lambda > 0) {
-      for (int i = 0; i < answers.size(); i++) {
-        String a = answers.get(i);
-        Double cached = answerLogProb.get(a);
-        if (cached != null) {
-          answerLm.put(a, cached);
-        } else if (!lmRows.containsKey(a)) {
-          lmRows.put(a, questions.size());
-          questions.add(codec.emptyQuestion());
-          rowAnswers.add(encodedAnswers.get(i));
+    double[] logLikelihoods;
+    double[] answerLm = new double[answers.size()];
+    acquire();
+    try {
+      List<int[]> ids = new ArrayList<>(answers.size());
+      for (PairCodec.Encoded a : encodedAnswers) {
+        ids.add(a.ids());
+      }
+      logLikelihoods = pass.logLikelihoods(pass.encode(q.ids()), ids);
+      if (lambda > 0) {
+        Map<String, Integer> uncached = new LinkedHashMap<>();
+        for (int i = 0; i < answers.size(); i++) {
+          Double cached = answerLogProb.get(answers.get(i));
+          if (cached != null) {
+            answerLm[i] = cached;
+          } else {
+            uncached.putIfAbsent(answers.get(i), i);
+          }
+        }
+        if (!uncached.isEmpty()) {
+          // P(answer): the same network given the empty question, for the answers not cached yet
+          List<int[]> lmIds = new ArrayList<>();
+          uncached.values().forEach(i -> lmIds.add(ids.get(i)));
+          double[] lm = pass.logLikelihoods(pass.encode(codec.emptyQuestion().ids()), lmIds);
+          Map<String, Double> fresh = new HashMap<>();
+          int k = 0;
+          for (String a : uncached.keySet()) {
+            fresh.put(a, lm[k]);
+            answerLogProb.put(a, lm[k++]);
+          }
+          for (int i = 0; i < answers.size(); i++) {
+            answerLm[i] = fresh.getOrDefault(answers.get(i), answerLm[i]);
+          }
         }
       }
-    }
-    EncodedBatch batch = new EncodedBatch(questions, rowAnswers);
-    double[] logLikelihoods;
-    ComputationGraph network = take();
-    try {
-      INDArray output = LogLikelihoods.forward(network, batch);
-      logLikelihoods = LogLikelihoods.perRow(output, batch);
     } finally {
-      idle.add(network);
+      running.release();
     }
-    lmRows.forEach((answer, row) -> {
-      answerLm.put(answer, logLikelihoods[row]);
-      answerLogProb.put(answer, logLikelihoods[row]);
-    });
     List<AnswerScore> scores = new ArrayList<>(answers.size());
     for (int i = 0; i < answers.size(); i++) {
       double ll = logLikelihoods[i];
-      int tokens = batch.targetCount(i);
-      double lm = lambda > 0 ? answerLm.get(answers.get(i)) : 0;
-      scores.add(new AnswerScore(ll, tokens, ll / tokens, ll - lambda * lm, q.truncated(),
+      int tokens = encodedAnswers.get(i).ids().length + 1;
+      scores.add(new AnswerScore(ll, tokens, ll / tokens, ll - lambda * answerLm[i], q.truncated(),
           encodedAnswers.get(i).truncated()));
     }
     return List.copyOf(scores);
   }
 
-  /**
-   * The same configuration and weights, without the training state: {@code clone()} also copies
-   * the updater, which the attention layer's parameters have none of once loaded for scoring.
-   * Made before any pass runs, so the weights are read while nothing else uses the network.
-   */
-  private static ComputationGraph copyOf(ComputationGraph network) {
-    ComputationGraph copy = new ComputationGraph(network.getConfiguration().clone());
-    copy.init(network.params().dup(), false);
-    return copy;
-  }
-
-  private ComputationGraph take() {
+  private void acquire() {
     try {
-      return idle.take();
+      running.acquire();
     } catch (InterruptedException e) {
       Thread.currentThread().interrupt();
       throw new IllegalStateException("interrupted while waiting for the reranker", e);

@@ -12,10 +12,13 @@ import org.deeplearning4j.util.ModelSerializer;
 import org.nd4j.linalg.api.buffer.DataType;
 import org.nd4j.linalg.api.ndarray.INDArray;
 import org.nd4j.linalg.factory.Nd4j;
+import org.precedent.engine.rerank.AnswerScore;
 import org.precedent.engine.rerank.RerankerConfig;
 import org.precedent.engine.rerank.RerankerModel;
 import org.precedent.engine.rerank.Scorer;
 import org.precedent.engine.rerank.net.EncodedBatch;
+import org.precedent.engine.rerank.net.InferencePass;
+import org.precedent.engine.rerank.net.LogLikelihoods;
 import org.precedent.engine.rerank.net.PairCodec;
 import org.precedent.engine.rerank.net.Seq2SeqReranker;
 import org.precedent.engine.rerank.tokens.Tokenizer;
@@ -101,6 +104,36 @@ public final class RerankerBenchmark {
     line("scoring %d candidates (question 20 tokens, answers 40): p50 %.1f ms, p99 %.1f ms over %d runs",
         CANDIDATES, p50, percentile(millis, 0.99), repetitions);
 
+    // The same rows through DL4J's own forward pass (the reference the scorer is checked against,
+    // and what the scorer ran before): one padded batch, the question repeated per row.
+    List<PairCodec.Encoded> qs = new ArrayList<>();
+    List<PairCodec.Encoded> as = new ArrayList<>();
+    for (String a : answers) {
+      qs.add(codec.question(question));
+      as.add(codec.answer(a));
+    }
+    EncodedBatch batch = new EncodedBatch(qs, as);
+    double[] reference = LogLikelihoods.perRow(LogLikelihoods.forward(graph, batch), batch);
+    List<AnswerScore> fast = scorer.score(question, answers);
+    double worst = 0;
+    for (int i = 0; i < CANDIDATES; i++) {
+      worst = Math.max(worst, Math.abs(reference[i] - fast.get(i).logLikelihood()));
+    }
+    int referenceRuns = Math.max(10, repetitions / 4);
+    double[] dl4j = new double[referenceRuns];
+    for (int i = -5; i < referenceRuns; i++) {
+      long t0 = System.nanoTime();
+      LogLikelihoods.perRow(LogLikelihoods.forward(graph, batch), batch);
+      if (i >= 0) {
+        dl4j[i] = (System.nanoTime() - t0) / 1e6;
+      }
+    }
+    Arrays.sort(dl4j);
+    double dl4jP50 = percentile(dl4j, 0.50);
+    line("DL4J forward pass on the same %d rows (the reference): p50 %.1f ms, p99 %.1f ms over %d runs; "
+        + "max |log-likelihood difference| %.1e", CANDIDATES, dl4jP50, percentile(dl4j, 0.99), referenceRuns,
+        worst);
+
     // Throughput with passes at once, each on its own copy of the network (the service's decision
     // threads): one thread is the baseline, the ratio says how much of the second core is used.
     RerankerModel shared = new RerankerModel(graph, vocabulary, config, 0.5);
@@ -123,9 +156,14 @@ public final class RerankerBenchmark {
       line("ND4J matrix multiply %dx%d (float): %.1f GFLOP/s", n, n, rate);
     }
     double flops = scoringFlops(config, vocabulary.size(), CANDIDATES, 21, 41);
-    double achieved = flops / (p50 / 1000) / 1e9;
-    line("scoring pass: %.2f GFLOP (estimate from layer sizes), %.1f GFLOP/s achieved, %.0f%% of the machine rate",
-        flops / 1e9, achieved, 100 * achieved / machine);
+    line("DL4J's pass: %.2f GFLOP (estimate from layer sizes), %.1f GFLOP/s achieved, %.0f%% of the machine rate",
+        flops / 1e9, flops / (dl4jP50 / 1000) / 1e9, 100 * flops / (dl4jP50 / 1000) / 1e9 / machine);
+    double folded = InferencePass.flops(vocabulary.size(), config.hidden(), 21, answers.stream()
+        .mapToInt(a -> codec.answer(a).ids().length + 1).toArray());
+    line("scoring pass: %.2f GFLOP (the same function folded: shared question, table look-ups), "
+        + "%.1f GFLOP/s achieved, %.0f%% of the machine rate; %.2f GFLOP DL4J-equivalent in %.1f ms",
+        folded / 1e9, folded / (p50 / 1000) / 1e9, 100 * folded / (p50 / 1000) / 1e9 / machine,
+        flops / 1e9, p50);
   }
 
   /** Scoring passes per second with {@code threads} threads each running {@code runs} passes. */
