@@ -53,6 +53,9 @@ class AnswersServiceTest {
     assertEquals(403, http().post("/api/v1/answers/" + id + "/approval",
         Map.of("version", 1, "reason", "r"), Caller.QUEUE).status());
     assertEquals(401, http().get("/api/v1/answers", Caller.NOBODY).status());
+    JsonNode paths = http().get("/api/v1/openapi", Caller.NOBODY).json().get("paths");
+    assertTrue(paths.has("/api/v1/answers/{id}") && paths.has("/api/v1/answers/{id}/approval"),
+        paths.toString());
   }
 
   @Test
