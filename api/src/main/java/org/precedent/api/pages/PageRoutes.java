@@ -16,5 +16,6 @@ class PageRoutes implements WebMvcConfigurer {
     registry.addViewController("/").setViewName("forward:/pages/index.html");
     registry.addViewController("/answers").setViewName("forward:/pages/answers.html");
     registry.addViewController("/manage").setViewName("forward:/pages/manage.html");
+    registry.addViewController("/library").setViewName("forward:/pages/library.html");
   }
 }

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
+import org.precedent.api.answers.AnswerGate;
 import org.precedent.api.decision.Decider;
 import org.precedent.api.decision.DecisionView;
 import org.precedent.api.system.StorageFailures;
@@ -32,6 +33,7 @@ class QueueWorker implements SmartLifecycle {
   private static final long MAX_PAUSE_MS = 5_000;
   private final TicketQueue queue;
   private final Decider decider;
+  private final AnswerGate answers;
   private final long pollMs;
   private final Semaphore wake = new Semaphore(0);
   // Claims whose failure could not be stored yet (the database failed), by ticket id: the
@@ -42,10 +44,11 @@ class QueueWorker implements SmartLifecycle {
 
   private record Unfinished(TicketQueue.Claimed claim, String reason) {}
 
-  QueueWorker(TicketQueue queue, Decider decider, MeterRegistry meters,
+  QueueWorker(TicketQueue queue, Decider decider, AnswerGate answers, MeterRegistry meters,
       @Value("${precedent.queue.poll-ms}") long pollMs) {
     this.queue = queue;
     this.decider = decider;
+    this.answers = answers;
     this.pollMs = pollMs;
     for (TicketState state : TicketState.values()) {
       Gauge.builder("precedent.queue.tickets", () -> queue.count(state))
@@ -114,7 +117,8 @@ class QueueWorker implements SmartLifecycle {
   private void decide(TicketQueue.Claimed c) {
     DecisionView d;
     try {
-      d = decider.decideCleaned(c.question(), c.category(), 3, "queue");
+      // The library has the last word on what the queue sends (approved answers only).
+      d = answers.apply(decider.decideCleaned(c.question(), c.category(), 3, "queue"));
     } catch (RuntimeException | Error e) {
       String reason = describe(e);
       LOG.warn("ticket {}: decision failed (try {} of {}): {}", c.ticketId(), c.attempt(),

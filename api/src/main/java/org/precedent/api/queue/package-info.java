@@ -6,7 +6,7 @@
  * ticket that keeps failing ends as {@code FAILED} for a person, and {@link
  * org.precedent.api.queue.QueueHealth} reports the worker. It depends on {@code api.system}, on {@code
  * api.decision} (the {@code Decider}, which decides the stored question as cleaned, and the
- * decision's view), {@code knowledge.clean}, Spring (web, JDBC, transactions), Micrometer and Jackson;
+ * decision's view), {@code api.answers} (the library's gate on what is sent), {@code knowledge.clean}, Spring (web, JDBC, transactions), Micrometer and Jackson;
  * nothing depends on it.
  */
 package org.precedent.api.queue;

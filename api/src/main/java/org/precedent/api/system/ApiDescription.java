@@ -30,9 +30,10 @@ class ApiDescription {
                 are always handed off, with the caution to give the customer.
 
                 Sign in with an API key in the `X-Precedent-Key` header or with HTTP basic \
-                credentials. Roles: **agent** (suggestions, decisions, feedback), **queue** \
-                (submit tickets, read their decisions), **manager** (threshold, model versions, \
-                metrics). Errors are RFC 9457 problem details; too many failed sign-ins are \
+                credentials. Roles: **agent** (suggestions, decisions, feedback, reading the \
+                answer library), **queue** (submit tickets, read their decisions), **manager** \
+                (threshold, model versions, the answer library's edits, approvals and \
+                retirements, metrics). Errors are RFC 9457 problem details; too many failed sign-ins are \
                 answered 429 with Retry-After."""))
         .components(new Components()
             .addSecuritySchemes("apiKey", new SecurityScheme().type(SecurityScheme.Type.APIKEY)

@@ -43,7 +43,7 @@ class SecurityConfig {
   static boolean isPage(HttpServletRequest request) {
     String path = request.getRequestURI();
     return path.equals("/") || path.equals("/answers") || path.equals("/manage")
-        || path.startsWith("/pages/");
+        || path.equals("/library") || path.startsWith("/pages/");
   }
 
   static boolean isDocs(HttpServletRequest request) {
@@ -83,7 +83,8 @@ class SecurityConfig {
             .requestMatchers(GET, "/api/v1/openapi", "/api/v1/openapi/**", DOCS, DOCS + "/**",
                 DOCS_FILES + "**").permitAll()
             // The pages hold no data; they call the API below with the caller's own credentials.
-            .requestMatchers(GET, "/", "/answers", "/manage", "/pages/**", "/error").permitAll()
+            .requestMatchers(GET, "/", "/answers", "/manage", "/library", "/pages/**", "/error")
+                .permitAll()
             .requestMatchers(GET, "/api/v1/me").authenticated()
             .requestMatchers(POST, "/api/v1/suggestions").hasAnyRole("AGENT", "MANAGER")
             .requestMatchers(POST, "/api/v1/decisions").hasAnyRole("AGENT", "MANAGER", "QUEUE")
@@ -95,6 +96,12 @@ class SecurityConfig {
                 "/api/v1/threshold/evaluation").hasRole("MANAGER")
             .requestMatchers(PUT, "/api/v1/threshold").hasRole("MANAGER")
             .requestMatchers("/api/v1/models", "/api/v1/models/**").hasRole("MANAGER")
+            // The answer library: agents read it, managers change it.
+            .requestMatchers(GET, "/api/v1/answers", "/api/v1/answers/**")
+                .hasAnyRole("AGENT", "MANAGER")
+            .requestMatchers(PUT, "/api/v1/answers/*").hasRole("MANAGER")
+            .requestMatchers(POST, "/api/v1/answers/*/approval", "/api/v1/answers/*/retirement")
+                .hasRole("MANAGER")
             .requestMatchers("/actuator/**").hasRole("MANAGER")
             .anyRequest().authenticated());
     return http.build();

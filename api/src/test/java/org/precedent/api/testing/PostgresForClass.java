@@ -44,8 +44,15 @@ public final class PostgresForClass implements BeforeAllCallback, AfterAllCallba
   /** Empties every table the migrations made, keeping the tables and Flyway's history. */
   public void reset() {
     try (Connection c = dataSource().getConnection(); Statement s = c.createStatement()) {
-      s.execute("TRUNCATE queue_ticket, ticket_decision, suggestion_feedback, threshold_change,"
-          + " model_activation, storage_probe RESTART IDENTITY");
+      // Every table but Flyway's history, so that a table a later migration adds is emptied too.
+      java.util.List<String> tables = new java.util.ArrayList<>();
+      try (var rs = s.executeQuery("SELECT tablename FROM pg_tables WHERE schemaname = 'public'"
+          + " AND tablename <> 'flyway_schema_history'")) {
+        while (rs.next()) {
+          tables.add(rs.getString(1));
+        }
+      }
+      s.execute("TRUNCATE " + String.join(", ", tables) + " RESTART IDENTITY");
     } catch (SQLException e) {
       throw new UncheckedIOException(new IOException("could not empty the test database", e));
     }

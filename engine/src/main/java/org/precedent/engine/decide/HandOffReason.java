@@ -19,5 +19,12 @@ public enum HandOffReason {
    */
   NEEDS_CUSTOMER_DETAILS,
   /** The confidence is below the threshold in force. */
-  BELOW_THRESHOLD
+  BELOW_THRESHOLD,
+  /**
+   * The best answer is not approved in the service's answer library, and only approved answers
+   * are sent automatically (api.answers).
+   */
+  ANSWER_NOT_APPROVED,
+  /** The best answer is retired from the service's answer library (api.answers). */
+  ANSWER_RETIRED
 }
