@@ -35,9 +35,14 @@ class ClaimLeaseTest {
       return new DriverManagerDataSource("jdbc:h2:mem:claims" + System.nanoTime()
           + ";DB_CLOSE_DELAY=-1", "sa", "");
     }
-    ServiceSchema.migrate(postgres.dataSource());
-    postgres.reset();
-    return postgres.dataSource();
+    return emptied(postgres);
+  }
+
+  /** The server's database, migrated and emptied. */
+  static DataSource emptied(PostgresForClass server) {
+    ServiceSchema.migrate(server.dataSource());
+    server.reset();
+    return server.dataSource();
   }
 
   static TicketQueue replica(DataSource db, String id, Duration lease) {
