@@ -85,6 +85,46 @@ public final class InForceHolder implements AutoCloseable {
     }
   }
 
+  /**
+   * Puts thresholds another replica changed in force here, without writing the data directory
+   * (the replica that made the change wrote it). Nothing happens when they are the ones in force.
+   */
+  public boolean adoptThresholds(Thresholds next) {
+    synchronized (swapLock) {
+      if (next.equals(thresholdsInForce.get())) {
+        return false;
+      }
+      Served s = current.get();
+      current.set(new Served(s.loaded(), s.pipeline().withThresholds(next)));
+      thresholdsInForce.set(next);
+      return true;
+    }
+  }
+
+  /**
+   * Puts in force the version another replica activated, as the shared data directory's {@code
+   * ACTIVE} names it, without writing it. Refused (an exception, the version in force stays) when
+   * {@code ACTIVE} names another version or the version cannot be opened.
+   */
+  public boolean adoptVersion(String version) throws IOException {
+    synchronized (swapLock) {
+      if (version.equals(version())) {
+        return false;
+      }
+      String named = store().activeVersion().orElse("none");
+      if (!named.equals(version)) {
+        throw new IOException("the database names model version " + version + " in force, but "
+            + dataDir.models().resolve(ModelStore.ACTIVE) + " names " + named
+            + ": replicas must share one data directory");
+      }
+      InForce opened = InForce.open(dataDir);
+      Served old = current.getAndSet(new Served(new SharedInForce(opened),
+          opened.pipeline().withThresholds(thresholdsInForce.get())));
+      old.loaded().release();
+      return true;
+    }
+  }
+
   /** Records a threshold change (the audit), given the old and new thresholds. */
   @FunctionalInterface
   public interface ThresholdsChange {

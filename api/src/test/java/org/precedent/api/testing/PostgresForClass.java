@@ -45,7 +45,7 @@ public final class PostgresForClass implements BeforeAllCallback, AfterAllCallba
   public void reset() {
     try (Connection c = dataSource().getConnection(); Statement s = c.createStatement()) {
       s.execute("TRUNCATE queue_ticket, ticket_decision, suggestion_feedback, threshold_change,"
-          + " model_activation, storage_probe RESTART IDENTITY");
+          + " model_activation, storage_probe, shared_in_force RESTART IDENTITY");
     } catch (SQLException e) {
       throw new UncheckedIOException(new IOException("could not empty the test database", e));
     }
