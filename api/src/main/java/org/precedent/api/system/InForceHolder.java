@@ -3,6 +3,7 @@ package org.precedent.api.system;
 import java.io.IOException;
 import java.util.List;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.function.BooleanSupplier;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.rerank.ModelLoadException;
@@ -87,11 +88,13 @@ public final class InForceHolder implements AutoCloseable {
 
   /**
    * Puts thresholds another replica changed in force here, without writing the data directory
-   * (the replica that made the change wrote it). Nothing happens when they are the ones in force.
+   * (the replica that made the change wrote it). Nothing happens when they are the ones in force,
+   * or when {@code stillNewer}, asked under the lock every change here holds, says a change made
+   * here since is newer.
    */
-  public boolean adoptThresholds(Thresholds next) {
+  public boolean adoptThresholds(Thresholds next, BooleanSupplier stillNewer) {
     synchronized (swapLock) {
-      if (next.equals(thresholdsInForce.get())) {
+      if (!stillNewer.getAsBoolean() || next.equals(thresholdsInForce.get())) {
         return false;
       }
       Served s = current.get();

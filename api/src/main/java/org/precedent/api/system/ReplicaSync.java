@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.List;
+import java.util.concurrent.atomic.AtomicLong;
 import org.precedent.engine.decide.Thresholds;
 import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
@@ -32,9 +33,9 @@ public class ReplicaSync implements SmartLifecycle {
   private final InForceHolder holder;
   private final ObjectMapper json;
   private final long pollMs;
-  private final Object seenLock = new Object();
-  private long seenThresholds = -1;
-  private long seenModel = -1;
+  // Revisions already in force here. No lock: a change's request thread holds the holder's swap
+  // lock while it publishes, and the poll takes that lock to adopt, so a lock here could deadlock.
+  private final AtomicLong seenThresholds = new AtomicLong(-1);
   private volatile boolean running;
   private volatile Thread thread;
 
@@ -50,23 +51,42 @@ public class ReplicaSync implements SmartLifecycle {
     this.pollMs = pollMs;
   }
 
-  /** Records the thresholds now in force for every replica; call in the audit's transaction. */
-  public void publishThresholds(Thresholds t) {
-    long revision = publish(THRESHOLDS, write(t));
-    synchronized (seenLock) {
-      seenThresholds = Math.max(seenThresholds, revision);
-    }
+  /**
+   * Records the thresholds now in force for every replica; call in the audit's transaction, and
+   * once it has committed, {@link #thresholdsCommitted} with the revision returned.
+   */
+  public long publishThresholds(Thresholds t) {
+    return publish(THRESHOLDS, write(t));
+  }
+
+  /**
+   * Notes a committed revision of this replica's own change, under the holder's swap lock (in
+   * {@link InForceHolder#changeThresholds}'s callback), where the poll also looks: so a poll that
+   * read an older revision before the change cannot put it in force after it.
+   */
+  public void thresholdsCommitted(long revision) {
+    seenThresholds.accumulateAndGet(revision, Math::max);
   }
 
   /** Records the model version now in force for every replica; call in the audit's transaction. */
   public void publishVersion(String version) {
-    long revision = publish(MODEL, version);
-    synchronized (seenLock) {
-      seenModel = Math.max(seenModel, revision);
-    }
+    publish(MODEL, version);
   }
 
   private long publish(String name, String content) {
+    return publish(db, name, content);
+  }
+
+  /**
+   * Records thresholds put in force outside the service (the command line's audited change) as
+   * the shared ones, in the caller's transaction on {@code db}: otherwise the service's next start
+   * would put the older shared row back in force over them.
+   */
+  public static void publishThresholds(JdbcTemplate db, Thresholds t) {
+    publish(db, THRESHOLDS, write(new ObjectMapper(), t));
+  }
+
+  private static long publish(JdbcTemplate db, String name, String content) {
     Timestamp now = Timestamp.from(Instant.now());
     String update = "UPDATE shared_in_force SET content = ?, revision = revision + 1, "
         + "changed_at = ? WHERE name = ?";
@@ -85,24 +105,41 @@ public class ReplicaSync implements SmartLifecycle {
 
   private record Row(String name, String content, long revision) {}
 
-  /** Puts in force whatever another replica changed since the last look. */
+  /**
+   * Puts in force whatever another replica changed since the last look. Runs on the sync thread
+   * alone (and once at start, before that thread).
+   */
   void poll() throws java.io.IOException {
     List<Row> rows = db.query("SELECT name, content, revision FROM shared_in_force",
         (rs, n) -> new Row(rs.getString(1), rs.getString(2), rs.getLong(3)));
+    java.io.IOException first = null;
     for (Row r : rows) {
-      synchronized (seenLock) {
-        if (r.name().equals(THRESHOLDS) && r.revision() > seenThresholds) {
-          if (holder.adoptThresholds(read(r.content()))) {
-            LOG.info("thresholds changed by another replica put in force (revision {})",
-                r.revision());
-          }
-          seenThresholds = r.revision();
-        } else if (r.name().equals(MODEL) && r.revision() > seenModel) {
-          if (holder.adoptVersion(r.content())) {
-            LOG.info("model version {} activated by another replica put in force", r.content());
-          }
-          seenModel = r.revision();
-        }
+      try {
+        adopt(r);
+      } catch (java.io.IOException | RuntimeException e) {
+        // One row's trouble does not keep the other from being put in force.
+        first = first != null ? first : e instanceof java.io.IOException io ? io
+            : new java.io.IOException(e.getMessage(), e);
+      }
+    }
+    if (first != null) {
+      throw first;
+    }
+  }
+
+  private void adopt(Row r) throws java.io.IOException {
+    if (r.name().equals(THRESHOLDS) && r.revision() > seenThresholds.get()) {
+      Thresholds shared = read(r.content());
+      if (holder.adoptThresholds(shared, () -> r.revision() > seenThresholds.get())) {
+        LOG.info("thresholds changed by another replica put in force (revision {})",
+            r.revision());
+      }
+      seenThresholds.accumulateAndGet(r.revision(), Math::max);
+    } else if (r.name().equals(MODEL)) {
+      // Compared by name, not revision: opening a version is checked against ACTIVE, which a
+      // local activation writes first, so a poll that read an older row is refused there.
+      if (holder.adoptVersion(r.content())) {
+        LOG.info("model version {} activated by another replica put in force", r.content());
       }
     }
   }
@@ -160,6 +197,10 @@ public class ReplicaSync implements SmartLifecycle {
   }
 
   private String write(Thresholds t) {
+    return write(json, t);
+  }
+
+  private static String write(ObjectMapper json, Thresholds t) {
     try {
       return json.writeValueAsString(t);
     } catch (JsonProcessingException e) {

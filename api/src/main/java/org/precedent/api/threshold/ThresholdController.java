@@ -97,16 +97,18 @@ class ThresholdController {
     }
     Instant at = Instant.now();
     // The audit record and the row every replica reads: both or neither.
-    Thresholds old = models.changeThresholds(next, (before, after) -> tx.executeWithoutResult(
-        status -> {
-          db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, "
-              + "new_value, reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
-              // Set outside the service (evaluate --apply, by hand), the old ones may be longer.
-              ThresholdAudit.abbreviate(ThresholdAudit.describe(before),
-                  audit.width("threshold_change", "old_value")),
-              ThresholdAudit.describe(after), reason);
-          replicas.publishThresholds(after);
-        }));
+    Thresholds old = models.changeThresholds(next, (before, after) -> {
+      Long revision = tx.execute(status -> {
+        db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, "
+            + "new_value, reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
+            // Set outside the service (evaluate --apply, by hand), the old ones may be longer.
+            ThresholdAudit.abbreviate(ThresholdAudit.describe(before),
+                audit.width("threshold_change", "old_value")),
+            ThresholdAudit.describe(after), reason);
+        return replicas.publishThresholds(after);
+      });
+      replicas.thresholdsCommitted(revision == null ? 0 : revision);
+    });
     Map<String, Object> out = new LinkedHashMap<>();
     out.put("changedBy", who.getName());
     out.put("changedAt", at.toString());
