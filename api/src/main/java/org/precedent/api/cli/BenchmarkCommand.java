@@ -9,7 +9,7 @@ import picocli.CommandLine.Spec;
     description = "Measures Precedent's speed and prints the figures.",
     subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class,
         EncoderBenchmark.class,
-        ClincBenchmark.class, ServiceBenchmark.class, FiguresCommand.class})
+        ClincBenchmark.class, ServiceBenchmark.class, QueueBenchmark.class, FiguresCommand.class})
 final class BenchmarkCommand implements Callable<Integer> {
   @picocli.CommandLine.ParentCommand
   PrecedentCommand parent;

@@ -10,9 +10,11 @@ import java.util.List;
 import java.util.Map;
 import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.InForceHolder;
+import org.precedent.api.system.ReplicaSync;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.transaction.support.TransactionTemplate;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PathVariable;
 import org.springframework.web.bind.annotation.PostMapping;
@@ -29,11 +31,16 @@ class ModelsController {
   private final InForceHolder models;
   private final JdbcTemplate db;
   private final AuditColumns audit;
+  private final ReplicaSync replicas;
+  private final TransactionTemplate tx;
 
-  ModelsController(InForceHolder models, JdbcTemplate db, AuditColumns audit) {
+  ModelsController(InForceHolder models, JdbcTemplate db, AuditColumns audit,
+      ReplicaSync replicas, TransactionTemplate tx) {
     this.models = models;
     this.db = db;
     this.audit = audit;
+    this.replicas = replicas;
+    this.tx = tx;
   }
 
   @GetMapping("/api/v1/models")
@@ -89,8 +96,13 @@ class ModelsController {
       throws IOException {
     String before = models.activate(version);
     Instant at = Instant.now();
-    db.update("INSERT INTO model_activation (activated_by, activated_at, old_version, new_version, "
-        + "reason) VALUES (?, ?, ?, ?, ?)", who, Timestamp.from(at), before, version, reason.strip());
+    // The audit record and the row every replica reads: both or neither.
+    tx.executeWithoutResult(status -> {
+      db.update("INSERT INTO model_activation (activated_by, activated_at, old_version, "
+          + "new_version, reason) VALUES (?, ?, ?, ?, ?)", who, Timestamp.from(at), before,
+          version, reason.strip());
+      replicas.publishVersion(version);
+    });
     Map<String, Object> out = new LinkedHashMap<>();
     out.put("previous", before);
     out.put("active", version);

@@ -2,10 +2,11 @@ package org.precedent.api.queue;
 
 import io.micrometer.core.instrument.Gauge;
 import io.micrometer.core.instrument.MeterRegistry;
+import java.time.Duration;
+import java.util.ArrayDeque;
 import java.util.LinkedHashMap;
 import java.util.Locale;
 import java.util.Map;
-import java.util.Optional;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
 import org.precedent.api.answers.AnswerGate;
@@ -19,8 +20,11 @@ import org.springframework.context.SmartLifecycle;
 import org.springframework.stereotype.Component;
 
 /**
- * Decides queued tickets one at a time on a thread of its own. It wakes when a ticket is submitted,
- * and every poll interval in any case (a ticket stored by another instance, or left by a crash).
+ * Decides queued tickets one at a time on a thread of its own, claiming {@code precedent.queue.batch}
+ * at once. It wakes when a ticket is submitted, and every poll interval in any case (a ticket
+ * stored by another replica, or a claim whose replica stopped). A decision the queue refuses
+ * (the claim's lease ended and another replica took the ticket) is logged and dropped; a stopping
+ * worker gives its undecided claims back.
  *
  * <p>Whatever one ticket's decision throws (a {@link StackOverflowError} included) is that
  * ticket's failure: it is recorded with the ticket and the worker goes on with the next. When the
@@ -31,10 +35,14 @@ import org.springframework.stereotype.Component;
 class QueueWorker implements SmartLifecycle {
   private static final Logger LOG = LoggerFactory.getLogger(QueueWorker.class);
   private static final long MAX_PAUSE_MS = 5_000;
+  private static final Duration LEASE_MARGIN = Duration.ofSeconds(2);
   private final TicketQueue queue;
   private final Decider decider;
   private final AnswerGate answers;
   private final long pollMs;
+  private final int batch;
+  // Claimed and not yet decided: the worker's own thread alone touches it.
+  private final ArrayDeque<TicketQueue.Claimed> claimed = new ArrayDeque<>();
   private final Semaphore wake = new Semaphore(0);
   // Claims whose failure could not be stored yet (the database failed), by ticket id: the
   // worker's own thread alone touches it.
@@ -44,12 +52,18 @@ class QueueWorker implements SmartLifecycle {
 
   private record Unfinished(TicketQueue.Claimed claim, String reason) {}
 
-  QueueWorker(TicketQueue queue, Decider decider, AnswerGate answers, MeterRegistry meters,
-      @Value("${precedent.queue.poll-ms}") long pollMs) {
+  QueueWorker(TicketQueue queue, Decider decider, AnswerGate answers,
+      MeterRegistry meters,
+      @Value("${precedent.queue.poll-ms}") long pollMs,
+      @Value("${precedent.queue.batch:8}") int batch) {
+    if (batch < 1) {
+      throw new IllegalArgumentException("precedent.queue.batch must be at least 1, not " + batch);
+    }
     this.queue = queue;
     this.decider = decider;
     this.answers = answers;
     this.pollMs = pollMs;
+    this.batch = batch;
     for (TicketState state : TicketState.values()) {
       Gauge.builder("precedent.queue.tickets", () -> queue.count(state))
           .description("tickets in the queue's database, by state")
@@ -84,20 +98,29 @@ class QueueWorker implements SmartLifecycle {
     while (running) {
       try {
         storeUnfinished();
-        Optional<TicketQueue.Claimed> claimed = queue.claimNext();
+        if (claimed.isEmpty()) {
+          claimed.addAll(queue.claimBatch(batch));
+        }
         if (failing) {
           LOG.info("queue worker: the database works again");
           failing = false;
           pause = pollMs;
         }
-        if (claimed.isPresent()) {
-          decide(claimed.get());
+        TicketQueue.Claimed next = claimed.poll();
+        if (next != null) {
+          // A claim whose lease is about to end is another replica's to take: deciding it now
+          // would most likely be refused.
+          if (next.leaseLeft(LEASE_MARGIN)) {
+            decide(next);
+          } else {
+            queue.giveBack(next);
+          }
         } else {
           wake.tryAcquire(pollMs, TimeUnit.MILLISECONDS);
           wake.drainPermits();
         }
       } catch (InterruptedException e) {
-        return;
+        break;
       } catch (Throwable e) {
         // The database is unavailable (or worse); claims and unstored outcomes stay and are
         // retried after a pause. The thread must not end here: nothing else would decide tickets.
@@ -112,6 +135,20 @@ class QueueWorker implements SmartLifecycle {
         pause = Math.min(2 * pause, Math.max(pollMs, MAX_PAUSE_MS));
       }
     }
+    giveBackClaims();
+  }
+
+  /** On stopping: the batch's undecided claims go back to the queue for any replica at once. */
+  private void giveBackClaims() {
+    try {
+      for (TicketQueue.Claimed c : claimed) {
+        queue.giveBack(c);
+      }
+    } catch (RuntimeException e) {
+      LOG.warn("queue worker: {} claims could not be given back ({}); they return when their "
+          + "lease ends", claimed.size(), describe(e));
+    }
+    claimed.clear();
   }
 
   private void decide(TicketQueue.Claimed c) {
@@ -127,7 +164,11 @@ class QueueWorker implements SmartLifecycle {
       return;
     }
     try {
-      queue.decided(c, d);
+      if (!queue.decided(c, d)) {
+        LOG.warn("ticket {}: decision refused, the claim (replica {}, try {}) is no longer this "
+            + "replica's: its lease ended and another replica claimed it", c.ticketId(),
+            queue.owner(), c.attempt());
+      }
     } catch (RuntimeException e) {
       fail(c, "its decision could not be stored: " + (StorageFailures.isStorageFailure(e)
           ? StorageFailures.describe(e) : describe(e)));
@@ -144,7 +185,10 @@ class QueueWorker implements SmartLifecycle {
     var it = unfinished.values().iterator();
     while (it.hasNext()) {
       Unfinished u = it.next();
-      queue.failed(u.claim(), u.reason());
+      if (!queue.failed(u.claim(), u.reason())) {
+        LOG.warn("ticket {}: failure not recorded, the claim is no longer this replica's",
+            u.claim().ticketId());
+      }
       it.remove();
     }
   }

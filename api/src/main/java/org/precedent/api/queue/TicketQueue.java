@@ -3,23 +3,29 @@ package org.precedent.api.queue;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.sql.Timestamp;
+import java.time.Duration;
 import java.time.Instant;
+import java.time.OffsetDateTime;
 import java.util.List;
 import java.util.Optional;
 import org.precedent.api.decision.DecisionView;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.ticket.Category;
+import org.springframework.beans.factory.annotation.Autowired;
+import org.springframework.beans.factory.annotation.Value;
 import org.springframework.dao.DuplicateKeyException;
+import org.springframework.jdbc.core.ConnectionCallback;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.stereotype.Component;
 import org.springframework.transaction.support.TransactionTemplate;
 
 /**
  * The durable queue: a ticket is committed to the database before its submission is acknowledged,
- * is claimed by flipping its status in a conditional update, and gets its decision in the same
- * transaction that marks it decided. The decision table is keyed by ticket id, so a ticket can
- * never be decided twice; a claim left by a crash is released at the next start and the ticket
- * decided then. Every claim counts an attempt in the database, so a ticket that cannot be decided
+ * is claimed in batches by one replica ({@code FOR UPDATE SKIP LOCKED}, the replica's id and a
+ * lease stamped on it), and gets its decision in the same transaction that marks it decided, by a
+ * conditional update that only the claim's owner on the claim's attempt passes. The decision table
+ * is keyed by ticket id, so a ticket can never be decided twice; a claim whose replica stopped is
+ * taken by another replica once its lease ends, or released when the same replica starts again. Every claim counts an attempt in the database, so a ticket that cannot be decided
  * (whether its decision fails or takes the service down with it) is tried a bounded number of
  * times, across restarts too, and then marked failed with the reason.
  */
@@ -31,11 +37,28 @@ class TicketQueue {
   private final TransactionTemplate tx;
   private final ObjectMapper json;
   private final TextCleaner cleaner = TextCleaner.standard();
+  private final String owner;
+  private final Duration lease;
+  private volatile Boolean sole;
 
-  TicketQueue(JdbcTemplate db, TransactionTemplate tx, ObjectMapper json) {
+  @Autowired
+  TicketQueue(JdbcTemplate db, TransactionTemplate tx, ObjectMapper json,
+      @Value("${precedent.replica.id:}") String replicaId,
+      @Value("${precedent.queue.lease-seconds:30}") long leaseSeconds) {
+    this(db, tx, json, ReplicaId.orGenerated(replicaId), Duration.ofSeconds(leaseSeconds));
+  }
+
+  TicketQueue(JdbcTemplate db, TransactionTemplate tx, ObjectMapper json, String owner,
+      Duration lease) {
+    if (lease.isNegative() || lease.isZero()) {
+      throw new IllegalArgumentException("precedent.queue.lease-seconds must be positive, not "
+          + lease.toSeconds());
+    }
     this.db = db;
     this.tx = tx;
     this.json = json;
+    this.owner = owner;
+    this.lease = lease;
   }
 
   /** What a submission did. */
@@ -82,75 +105,158 @@ class TicketQueue {
   record Released(int queued, int failed) {}
 
   /**
-   * Releases claims a previous run left behind (it stopped mid-decision): back in the queue, or
-   * failed when that was the last attempt. The service may have stopped because of the ticket
-   * itself, so a restart must not give it more tries.
+   * Releases claims a previous run of this replica left behind (it stopped mid-decision): back in
+   * the queue, or failed when that was the last attempt. The service may have stopped because of
+   * the ticket itself, so a restart must not give it more tries. On H2 the database file admits
+   * one process, so every claim in it is a dead one; on a shared database only this replica's own
+   * claims, and those made before claims had owners, are known dead: another replica's wait for
+   * their lease to end ({@link #claimBatch}).
    */
   Released releaseClaims() {
-    int failed = db.update("UPDATE queue_ticket SET status = ?, claimed_at = NULL, failure = ? "
-        + "WHERE (status = ? OR status = ?) AND attempts >= ?", TicketState.FAILED.name(),
-        "the service stopped while deciding it, " + MAX_ATTEMPTS + " times",
-        TicketState.DECIDING.name(), TicketState.QUEUED.name(), MAX_ATTEMPTS);
+    String whose = soleService() ? "" : " AND (claim_owner = ? OR claim_owner IS NULL)";
+    Object[] mine = soleService() ? new Object[0] : new Object[] {owner};
+    int failed = db.update("UPDATE queue_ticket SET status = ?, claimed_at = NULL, "
+        + "lease_until = NULL, failure = ? WHERE (status = ? OR status = ?) AND attempts >= ?"
+        + whose, concat(new Object[] {TicketState.FAILED.name(), "the service stopped while "
+        + "deciding it, " + MAX_ATTEMPTS + " times", TicketState.DECIDING.name(),
+        TicketState.QUEUED.name(), MAX_ATTEMPTS}, mine));
     int queued = db.update("UPDATE queue_ticket SET status = ?, claimed_at = NULL, "
-        + "failure = COALESCE(failure, 'the service stopped while deciding it') WHERE status = ?",
-        TicketState.QUEUED.name(), TicketState.DECIDING.name());
+        + "lease_until = NULL, claim_owner = NULL, "
+        + "failure = COALESCE(failure, 'the service stopped while deciding it') WHERE status = ?"
+        + whose, concat(new Object[] {TicketState.QUEUED.name(), TicketState.DECIDING.name()},
+        mine));
     return new Released(queued, failed);
+  }
+
+  /**
+   * Claims up to {@code n} of the oldest tickets that are queued, or whose claim's lease has
+   * ended (its replica stopped or stalled), and that have tries left. {@code FOR UPDATE SKIP
+   * LOCKED} lets replicas claim at once without waiting on each other's rows; the claim stamps
+   * this replica as owner, a lease until the database's now plus the lease, and counts the
+   * attempt, all in one transaction, so no crash leaves a try uncounted. An ended claim on its
+   * last try is marked failed rather than tried again.
+   */
+  List<Claimed> claimBatch(int n) {
+    return tx.execute(status -> {
+      Instant now = databaseNow();
+      db.update("UPDATE queue_ticket SET status = ?, lease_until = NULL, failure = ? "
+          + "WHERE status = ? AND lease_until < ? AND attempts >= ?", TicketState.FAILED.name(),
+          "the replica deciding it stopped before its lease ended, " + MAX_ATTEMPTS + " times",
+          TicketState.DECIDING.name(), Timestamp.from(now), MAX_ATTEMPTS);
+      long deadline = System.nanoTime() + lease.toNanos();
+      List<Claimed> rows = db.query("SELECT seq, ticket_id, question, category, attempts "
+          + "FROM queue_ticket WHERE (status = ? OR (status = ? AND lease_until < ?)) "
+          + "AND attempts < ? ORDER BY seq LIMIT ? FOR UPDATE SKIP LOCKED",
+          (rs, i) -> new Claimed(rs.getLong(1), rs.getString(2), rs.getString(3),
+              rs.getString(4), rs.getInt(5) + 1, deadline), TicketState.QUEUED.name(),
+          TicketState.DECIDING.name(), Timestamp.from(now), MAX_ATTEMPTS, n);
+      Timestamp until = Timestamp.from(now.plus(lease));
+      for (Claimed c : rows) {
+        db.update("UPDATE queue_ticket SET status = ?, claim_owner = ?, claimed_at = ?, "
+            + "lease_until = ?, attempts = attempts + 1 WHERE seq = ?",
+            TicketState.DECIDING.name(), owner, Timestamp.from(now), until, c.seq());
+      }
+      return rows;
+    });
   }
 
   /** Claims the oldest queued ticket that has tries left, if there is one. */
   Optional<Claimed> claimNext() {
-    while (true) {
-      List<Claimed> next = db.query("SELECT ticket_id, question, category, attempts "
-          + "FROM queue_ticket WHERE status = ? AND attempts < ? ORDER BY seq FETCH FIRST 1 ROWS "
-          + "ONLY", (rs, n) -> new Claimed(rs.getString(1), rs.getString(2), rs.getString(3),
-          rs.getInt(4) + 1), TicketState.QUEUED.name(), MAX_ATTEMPTS);
-      if (next.isEmpty()) {
-        return Optional.empty();
-      }
-      Claimed c = next.get(0);
-      // The conditions make the claim exclusive even with several workers, and the attempt is
-      // counted in the same update, so no crash can leave a try uncounted.
-      int won = db.update("UPDATE queue_ticket SET status = ?, claimed_at = ?, "
-          + "attempts = attempts + 1 WHERE ticket_id = ? AND status = ? AND attempts = ?",
-          TicketState.DECIDING.name(), Timestamp.from(Instant.now()), c.ticketId(),
-          TicketState.QUEUED.name(), c.attempt() - 1);
-      if (won == 1) {
-        return Optional.of(c);
-      }
+    return claimBatch(1).stream().findFirst();
+  }
+
+  /**
+   * A claimed ticket; {@code attempt} counts this try, and with the owner it is the claim's token:
+   * a later claim of the same ticket counts another attempt. {@code deadlineNanos} is when the
+   * lease ends by this process's {@link System#nanoTime} clock, measured from before the claim.
+   */
+  record Claimed(long seq, String ticketId, String question, String category, int attempt,
+      long deadlineNanos) {
+
+    /** Whether the lease still has {@code margin} to run. */
+    boolean leaseLeft(Duration margin) {
+      return deadlineNanos - System.nanoTime() > margin.toNanos();
     }
   }
 
-  /** A claimed ticket; {@code attempt} counts this try. */
-  record Claimed(String ticketId, String question, String category, int attempt) {}
+  /** This replica's id, the owner of its claims. */
+  String owner() {
+    return owner;
+  }
 
-  /** Stores the decision and marks the ticket decided, both or neither. */
-  void decided(Claimed c, DecisionView d) {
+  /**
+   * Stores the decision and marks the ticket decided, both or neither, if the claim is still
+   * this replica's: still deciding, with this owner and this attempt. A lease that ended is no
+   * bar while nobody claimed the ticket since (the work is good and nobody else does it); once
+   * another replica has claimed it, this write is refused and {@code false} returned, so the
+   * ticket is decided once, by the replica that holds it.
+   */
+  boolean decided(Claimed c, DecisionView d) {
     String body = write(d);
-    tx.executeWithoutResult(status -> {
+    Boolean stored = tx.execute(status -> {
+      Instant now = databaseNow();
+      int marked = db.update("UPDATE queue_ticket SET status = ?, failure = NULL, "
+          + "lease_until = NULL WHERE ticket_id = ? AND status = ? AND claim_owner = ? "
+          + "AND attempts = ?", TicketState.DECIDED.name(), c.ticketId(),
+          TicketState.DECIDING.name(), owner, c.attempt());
+      if (marked != 1) {
+        return false;
+      }
       db.update("INSERT INTO ticket_decision (ticket_id, outcome, reason, confidence, threshold, "
           + "model_version, decided_at, body) VALUES (?, ?, ?, ?, ?, ?, ?, ?)", c.ticketId(),
           d.outcome(), d.reason(), d.confidence(), d.threshold(), d.modelVersion(),
-          Timestamp.from(Instant.now()), body);
-      int marked = db.update("UPDATE queue_ticket SET status = ?, failure = NULL "
-          + "WHERE ticket_id = ? AND status = ?", TicketState.DECIDED.name(), c.ticketId(),
-          TicketState.DECIDING.name());
-      if (marked != 1) {
-        throw new IllegalStateException("ticket " + c.ticketId() + " is no longer claimed");
-      }
+          Timestamp.from(now), body);
+      return true;
     });
+    return Boolean.TRUE.equals(stored);
   }
 
   /**
    * Puts a ticket whose decision failed back in the queue, or marks it failed after its last try;
-   * {@code reason} is kept either way and shown with the ticket.
+   * {@code reason} is kept either way and shown with the ticket. Refused ({@code false}) when the
+   * claim is no longer this replica's, as {@link #decided} is.
    */
-  void failed(Claimed c, String reason) {
+  boolean failed(Claimed c, String reason) {
     String kept = reason.length() <= FAILURE_CHARS ? reason
         : reason.substring(0, FAILURE_CHARS - 1) + "\u2026";
-    db.update("UPDATE queue_ticket SET status = ?, claimed_at = NULL, failure = ? "
-        + "WHERE ticket_id = ? AND status = ?",
+    return db.update("UPDATE queue_ticket SET status = ?, claimed_at = NULL, lease_until = NULL, "
+        + "failure = ? WHERE ticket_id = ? AND status = ? AND claim_owner = ? AND attempts = ?",
         (c.attempt() >= MAX_ATTEMPTS ? TicketState.FAILED : TicketState.QUEUED).name(), kept,
-        c.ticketId(), TicketState.DECIDING.name());
+        c.ticketId(), TicketState.DECIDING.name(), owner, c.attempt()) == 1;
+  }
+
+  /**
+   * Gives back a claim this replica will not decide (it is stopping, or the claim's lease ran
+   * short): queued again at once, its attempt uncounted, since nothing was tried.
+   */
+  void giveBack(Claimed c) {
+    db.update("UPDATE queue_ticket SET status = ?, claim_owner = NULL, claimed_at = NULL, "
+        + "lease_until = NULL, attempts = attempts - 1 WHERE ticket_id = ? AND status = ? "
+        + "AND claim_owner = ? AND attempts = ?", TicketState.QUEUED.name(), c.ticketId(),
+        TicketState.DECIDING.name(), owner, c.attempt());
+  }
+
+  /** The database's clock: every replica's leases are measured by the one clock. */
+  private Instant databaseNow() {
+    OffsetDateTime now = db.queryForObject("SELECT CURRENT_TIMESTAMP",
+        (rs, i) -> rs.getObject(1, OffsetDateTime.class));
+    return now == null ? Instant.now() : now.toInstant();
+  }
+
+  private boolean soleService() {
+    Boolean h2 = sole;
+    if (h2 == null) {
+      h2 = db.execute((ConnectionCallback<Boolean>) c ->
+          c.getMetaData().getDatabaseProductName().equals("H2"));
+      sole = h2;
+    }
+    return Boolean.TRUE.equals(h2);
+  }
+
+  private static Object[] concat(Object[] a, Object[] b) {
+    Object[] all = java.util.Arrays.copyOf(a, a.length + b.length);
+    System.arraycopy(b, 0, all, a.length, b.length);
+    return all;
   }
 
   long count(TicketState state) {

@@ -6,7 +6,10 @@
  * ticket that keeps failing ends as {@code FAILED} for a person, and {@link
  * org.precedent.api.queue.QueueHealth} reports the worker. It depends on {@code api.system}, on {@code
  * api.decision} (the {@code Decider}, which decides the stored question as cleaned, and the
- * decision's view), {@code api.answers} (the library's gate on what is sent), {@code knowledge.clean}, Spring (web, JDBC, transactions), Micrometer and Jackson;
- * nothing depends on it.
+ * decision's view), {@code api.answers} (the library's gate on what is sent), {@code
+ * knowledge.clean}, Spring (web, JDBC, transactions), HikariCP, Micrometer and
+ * Jackson; only {@code api.cli} depends on it, for the queue benchmark ({@link
+ * org.precedent.api.queue.QueueDrain}). Claims carry the replica's id and a lease ({@link
+ * org.precedent.api.queue.ReplicaId}), so replicas on one PostgreSQL share the queue.
  */
 package org.precedent.api.queue;

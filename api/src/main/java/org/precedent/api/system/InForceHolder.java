@@ -3,6 +3,7 @@ package org.precedent.api.system;
 import java.io.IOException;
 import java.util.List;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.function.BooleanSupplier;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.rerank.ModelLoadException;
@@ -82,6 +83,48 @@ public final class InForceHolder implements AutoCloseable {
       current.set(new Served(s.loaded(), s.pipeline().withThresholds(next)));
       thresholdsInForce.set(next);
       return old;
+    }
+  }
+
+  /**
+   * Puts thresholds another replica changed in force here, without writing the data directory
+   * (the replica that made the change wrote it). Nothing happens when they are the ones in force,
+   * or when {@code stillNewer}, asked under the lock every change here holds, says a change made
+   * here since is newer.
+   */
+  public boolean adoptThresholds(Thresholds next, BooleanSupplier stillNewer) {
+    synchronized (swapLock) {
+      if (!stillNewer.getAsBoolean() || next.equals(thresholdsInForce.get())) {
+        return false;
+      }
+      Served s = current.get();
+      current.set(new Served(s.loaded(), s.pipeline().withThresholds(next)));
+      thresholdsInForce.set(next);
+      return true;
+    }
+  }
+
+  /**
+   * Puts in force the version another replica activated, as the shared data directory's {@code
+   * ACTIVE} names it, without writing it. Refused (an exception, the version in force stays) when
+   * {@code ACTIVE} names another version or the version cannot be opened.
+   */
+  public boolean adoptVersion(String version) throws IOException {
+    synchronized (swapLock) {
+      if (version.equals(version())) {
+        return false;
+      }
+      String named = store().activeVersion().orElse("none");
+      if (!named.equals(version)) {
+        throw new IOException("the database names model version " + version + " in force, but "
+            + dataDir.models().resolve(ModelStore.ACTIVE) + " names " + named
+            + ": replicas must share one data directory");
+      }
+      InForce opened = InForce.open(dataDir);
+      Served old = current.getAndSet(new Served(new SharedInForce(opened),
+          opened.pipeline().withThresholds(thresholdsInForce.get())));
+      old.loaded().release();
+      return true;
     }
   }
 

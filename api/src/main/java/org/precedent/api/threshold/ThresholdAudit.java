@@ -9,6 +9,7 @@ import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.TreeMap;
 import org.precedent.api.system.AuditColumns;
+import org.precedent.api.system.ReplicaSync;
 import org.precedent.api.system.ServiceSchema;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
@@ -73,6 +74,9 @@ public final class ThresholdAudit {
         insert.setString(5, reason);
         insert.executeUpdate();
       }
+      // In the same transaction: the service's next start reads the shared row, not the file.
+      ReplicaSync.publishThresholds(new JdbcTemplate(new SingleConnectionDataSource(c, true)),
+          next);
       InForce.writeThresholds(dir, next);
       try {
         c.commit();

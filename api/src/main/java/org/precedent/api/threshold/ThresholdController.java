@@ -14,6 +14,7 @@ import java.util.TreeMap;
 import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.FieldProblem;
 import org.precedent.api.system.Limits;
+import org.precedent.api.system.ReplicaSync;
 import org.precedent.api.system.InForceHolder;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.evaluate.EvaluationReport;
@@ -22,6 +23,7 @@ import org.precedent.engine.measure.ThresholdDecimals;
 import org.springframework.http.HttpStatus;
 import org.springframework.http.MediaType;
 import org.springframework.jdbc.core.JdbcTemplate;
+import org.springframework.transaction.support.TransactionTemplate;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PutMapping;
 import org.springframework.web.bind.annotation.RequestBody;
@@ -34,11 +36,16 @@ class ThresholdController {
   private final InForceHolder models;
   private final JdbcTemplate db;
   private final AuditColumns audit;
+  private final ReplicaSync replicas;
+  private final TransactionTemplate tx;
 
-  ThresholdController(InForceHolder models, JdbcTemplate db, AuditColumns audit) {
+  ThresholdController(InForceHolder models, JdbcTemplate db, AuditColumns audit,
+      ReplicaSync replicas, TransactionTemplate tx) {
     this.models = models;
     this.db = db;
     this.audit = audit;
+    this.replicas = replicas;
+    this.tx = tx;
   }
 
   @GetMapping("/api/v1/threshold")
@@ -89,13 +96,19 @@ class ThresholdController {
           + ": set fewer categories, or shorter names");
     }
     Instant at = Instant.now();
-    Thresholds old = models.changeThresholds(next, (before, after) ->
-        db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, new_value, "
-            + "reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
+    // The audit record and the row every replica reads: both or neither.
+    Thresholds old = models.changeThresholds(next, (before, after) -> {
+      Long revision = tx.execute(status -> {
+        db.update("INSERT INTO threshold_change (changed_by, changed_at, old_value, "
+            + "new_value, reason) VALUES (?, ?, ?, ?, ?)", who.getName(), Timestamp.from(at),
             // Set outside the service (evaluate --apply, by hand), the old ones may be longer.
             ThresholdAudit.abbreviate(ThresholdAudit.describe(before),
                 audit.width("threshold_change", "old_value")),
-            ThresholdAudit.describe(after), reason));
+            ThresholdAudit.describe(after), reason);
+        return replicas.publishThresholds(after);
+      });
+      replicas.thresholdsCommitted(revision == null ? 0 : revision);
+    });
     Map<String, Object> out = new LinkedHashMap<>();
     out.put("changedBy", who.getName());
     out.put("changedAt", at.toString());

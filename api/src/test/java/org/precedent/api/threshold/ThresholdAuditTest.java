@@ -54,6 +54,16 @@ class ThresholdAuditTest {
             + "of May",
         "sam (command line) | global=0.9300; billing=0.9900 | global=0.9000 | billing is fine now"),
         rows(dir));
+    // The row the service puts in force at its start holds the command line's change too.
+    try (Connection c = DriverManager.getConnection("jdbc:h2:file:" + dir.serviceDatabase(), "sa",
+        "");
+        ResultSet rs = c.createStatement().executeQuery("SELECT content, revision FROM "
+            + "shared_in_force WHERE name = 'thresholds'")) {
+      assertTrue(rs.next());
+      assertEquals(Thresholds.global(0.9), new com.fasterxml.jackson.databind.ObjectMapper()
+          .readValue(rs.getString(1), Thresholds.class));
+      assertEquals(2, rs.getLong(2));
+    }
     // The audit sits with customers' data: owner-only, as the service keeps its files.
     if (Files.getFileStore(tmp).supportsFileAttributeView("posix")) {
       assertEquals("rwx------", java.nio.file.attribute.PosixFilePermissions.toString(
