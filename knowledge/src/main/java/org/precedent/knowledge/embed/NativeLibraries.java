@@ -32,7 +32,9 @@ import org.precedent.knowledge.io.AtomicFiles;
  * DIR/onnxruntime-VERSION/} (temporary file and rename, so two processes starting together do not see
  * a half-written library) and {@code onnxruntime.native.path} is pointed there; DJL's cache goes to
  * {@code DIR/djl}. A setting the user made directly for either library is left as it is. Without the
- * property the libraries' own defaults above apply.
+ * property DIR is {@code ~/.precedent/native}: unpacked once and kept, rather than copied into the
+ * system temp folder on every start (where a start-up pays for the copy and a full temp folder
+ * stops the encoder).
  */
 final class NativeLibraries {
   /** The system property naming the folder for unpacked native libraries. */
@@ -49,21 +51,25 @@ final class NativeLibraries {
       return;
     }
     String configured = System.getProperty(PROPERTY);
-    if (configured != null && !configured.isBlank()) {
-      Path dir = Path.of(configured).toAbsolutePath();
-      if (System.getProperty("DJL_CACHE_DIR") == null && System.getenv("DJL_CACHE_DIR") == null
-          && System.getProperty("ENGINE_CACHE_DIR") == null
-          && System.getenv("ENGINE_CACHE_DIR") == null) {
-        System.setProperty("DJL_CACHE_DIR", dir.resolve("djl").toString());
-      }
-      if (System.getProperty(ORT_PATH) == null) {
-        Path ort = unpackOnnxRuntime(dir);
-        if (ort != null) {
-          System.setProperty(ORT_PATH, ort.toString());
-        }
+    Path dir = (configured == null || configured.isBlank() ? defaultDirectory()
+        : Path.of(configured)).toAbsolutePath();
+    if (System.getProperty("DJL_CACHE_DIR") == null && System.getenv("DJL_CACHE_DIR") == null
+        && System.getProperty("ENGINE_CACHE_DIR") == null
+        && System.getenv("ENGINE_CACHE_DIR") == null) {
+      System.setProperty("DJL_CACHE_DIR", dir.resolve("djl").toString());
+    }
+    if (System.getProperty(ORT_PATH) == null) {
+      Path ort = unpackOnnxRuntime(dir);
+      if (ort != null) {
+        System.setProperty(ORT_PATH, ort.toString());
       }
     }
     prepared = true;
+  }
+
+  /** {@code ~/.precedent/native}, the folder used when {@value #PROPERTY} is not set. */
+  static Path defaultDirectory() {
+    return Path.of(System.getProperty("user.home"), ".precedent", "native");
   }
 
   /**
