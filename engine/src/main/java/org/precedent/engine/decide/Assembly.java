@@ -40,22 +40,25 @@ public final class Assembly {
   /** Every stage, BM25 only, with a fitted fusion model, a safety policy and the thresholds. */
   public static Pipeline pipeline(Retriever retriever, Scorer reranker, FusionModel fusion,
       SafetyPolicy safety, Thresholds thresholds) {
-    return pipeline(retriever, reranker, null, fusion, safety, thresholds);
+    return pipeline(retriever, reranker, null, fusion, safety, thresholds,
+        RerankerUse.fromSetting());
   }
 
   /**
    * Every stage, with a fitted fusion model, a safety policy and the thresholds in force.
    *
-   * @param dense the dense leg, or null for BM25 only; present exactly when fusion learnt from it
+   * @param dense       the dense leg, or null for BM25 only; present exactly when fusion learnt
+   *                    from it
+   * @param rerankerUse when decisions run the reranker
    */
   public static Pipeline pipeline(Retriever retriever, Scorer reranker, DenseLeg dense,
-      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds) {
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds, RerankerUse rerankerUse) {
     if (fusion.dense() != (dense != null)) {
       throw new IllegalArgumentException(fusion.dense()
           ? "the fusion model learnt from the dense leg, so decisions need it"
           : "the fusion model learnt without the dense leg, so decisions must not use it");
     }
     return new Pipeline(candidates(retriever, reranker, dense), new Ranker(fusion), safety,
-        thresholds);
+        thresholds, rerankerUse);
   }
 }

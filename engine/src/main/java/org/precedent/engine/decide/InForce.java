@@ -100,9 +100,14 @@ public final class InForce implements Closeable {
     return DenseLeg.open(vectors, classifier);
   }
 
-  /** The pipeline that decides with what is in force. */
+  /** The pipeline that decides with what is in force, running the reranker as set. */
   public Pipeline pipeline() {
-    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds);
+    return pipeline(RerankerUse.fromSetting());
+  }
+
+  /** The pipeline that decides with what is in force. */
+  public Pipeline pipeline(RerankerUse rerankerUse) {
+    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds, rerankerUse);
   }
 
   public Knowledge knowledge() {

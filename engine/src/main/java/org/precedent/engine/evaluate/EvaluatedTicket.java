@@ -21,9 +21,16 @@ import org.precedent.engine.measure.JudgedAnswer;
  * @param safetyGate  whether the gate before the threshold (a safety rule, a people-only category
  *                    or answer, an answer lacking a redacted detail) hands this ticket to a person
  *                    in service, whatever the confidence
+ * @param reranked    whether the system ran the reranker for this ticket
  */
 public record EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
-    double confidence, boolean safetyGate) {
+    double confidence, boolean safetyGate, boolean reranked) {
+  /** A ticket for a system whose use of the reranker is not measured. */
+  public EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
+      double confidence, boolean safetyGate) {
+    this(ticketId, category, inScope, rankOfRight, confidence, safetyGate, false);
+  }
+
   /** A ticket the safety gate lets through to the threshold. */
   public EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
       double confidence) {

@@ -61,7 +61,8 @@ public final class HeldOutRuns {
                 : ranked.candidates().get(0).candidate().group());
         bySystem.get(s).add(new EvaluatedTicket(q.ticketId(),
             q.category() == null ? "(none)" : q.category(), q.rightGroup() != null,
-            rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated));
+            rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated,
+            pipeline.reranks(s, scoring)));
       }
       progress.update(++done);
     }
