@@ -3,6 +3,9 @@ package org.precedent.api.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.util.Locale;
+import java.util.List;
+import org.precedent.api.answers.ApprovalCoverage;
+import org.precedent.api.answers.StoredAnswer;
 import org.precedent.api.threshold.ThresholdAudit;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
@@ -32,6 +35,48 @@ final class EvaluationPrinter {
     } else {
       w.println("no threshold could be guaranteed; the threshold in force is unchanged");
     }
+  }
+
+  /**
+   * Coverage and precision with the approval gate and without, at the guaranteed threshold (else
+   * the one in force), and what approving drafted answers would add.
+   */
+  static void approval(PrintWriter w, DataDir dataDir, HeldOutEvaluation result,
+      double inForce) {
+    var guaranteed = result.guaranteedThreshold();
+    double t = guaranteed.orElse(inForce);
+    List<StoredAnswer> library;
+    try {
+      library = ApprovalCoverage.libraryFromCommandLine(dataDir);
+    } catch (IOException e) {
+      w.println("approval gate: " + Messages.oneLine(e) + " (the manager page shows these "
+          + "figures while the service runs)");
+      return;
+    }
+    // The service's default: only approved answers are sent by the queue.
+    var r = ApprovalCoverage.of(result.report().outcomes(), t, library, true);
+    w.printf(Locale.ROOT, "%nat threshold %s (%s), of %d held-out tickets:%n",
+        ThresholdDecimals.of(t), guaranteed.isPresent() ? "guaranteed" : "in force",
+        r.withoutGate().tickets());
+    w.printf(Locale.ROOT, "  without the approval gate: %s answered automatically, %s right%n",
+        share(r.withoutGate().coverage()), share(r.withoutGate().precision()));
+    w.printf(Locale.ROOT, "  with the approval gate (%d approved answers): %s answered, %s right%n",
+        r.approvedAnswers(), share(r.withGate().coverage()), share(r.withGate().precision()));
+    if (r.additions().isEmpty()) {
+      return;
+    }
+    w.printf(Locale.ROOT, "  approving these %d answers would add %.1f points of coverage (%s "
+        + "right then):%n", r.additions().size(), r.pointsAdded(),
+        share(r.afterApproving().precision()));
+    for (var a : r.additions()) {
+      w.printf(Locale.ROOT, "    %-48s %3d tickets (%d right): %s%s%n", a.title(), a.tickets(),
+          a.right(), String.join(", ", a.ticketIds()), a.tickets() > a.ticketIds().size()
+              ? ", ..." : "");
+    }
+  }
+
+  private static String share(Double s) {
+    return s == null ? "n/a" : String.format(Locale.ROOT, "%.1f%%", 100 * s);
   }
 
   /** The systems side by side, the recommendation, the safety hand-offs and the report files. */
