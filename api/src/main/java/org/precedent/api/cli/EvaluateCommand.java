@@ -128,6 +128,13 @@ final class EvaluateCommand implements Callable<Integer> {
     }
     InForce opened;
     try {
+      store.verify(version);
+      if (store.fingerprint(version).equals(store.fingerprint(active.version()))) {
+        // The same files (a copy): the same figures, without measuring them twice.
+        keep(w, store, version, active, result.report(), result);
+        w.println("(" + version + " holds the same files as " + active.version() + ")");
+        return;
+      }
       opened = InForce.open(dataDir, version);
     } catch (ModelLoadException e) {
       if (candidate != null) {
@@ -139,24 +146,30 @@ final class EvaluateCommand implements Callable<Integer> {
     try (InForce other = opened) {
       var report = HeldOutEvaluation.measure(other, parsed, file.getFileName().toString(), target,
           new Progress("evaluating " + version, "tickets", System.err));
-      var basis = new VersionComparison.Basis(store.fingerprint(version),
-          store.fingerprint(active.version()),
-          active.knowledge().generation().getFileName().toString(),
-          file.getFileName().toString(), AtomicFiles.sha256(file));
-      VersionComparison c = VersionComparison.of(version, report, active.version(),
-          result.report(), basis, Instant.now());
-      Path kept = VersionComparisons.write(store, c);
-      w.println();
-      Activations.lines(c).forEach(w::println);
-      if (c.candidateWorse()) {
-        w.println(version + " answers fewer held-out tickets at the target precision: activating "
-            + "it needs an acknowledgement (precedent activate " + version + " --acknowledge "
-            + "--reason TEXT)");
-      } else {
-        w.println("to put " + version + " in force: precedent activate " + version
-            + " --reason TEXT");
-      }
-      w.println("comparison: " + kept);
+      keep(w, store, version, active, report, result);
     }
+  }
+
+  private void keep(PrintWriter w, ModelStore store, String version, InForce active,
+      org.precedent.engine.evaluate.EvaluationReport report, HeldOutEvaluation result)
+      throws java.io.IOException {
+    var basis = new VersionComparison.Basis(store.fingerprint(version),
+        store.fingerprint(active.version()),
+        active.knowledge().generation().getFileName().toString(),
+        file.getFileName().toString(), AtomicFiles.sha256(file));
+    VersionComparison c = VersionComparison.of(version, report, active.version(),
+        result.report(), basis, Instant.now());
+    Path kept = VersionComparisons.write(store, c);
+    w.println();
+    Activations.lines(c).forEach(w::println);
+    if (c.candidateWorse()) {
+      w.println(version + " answers fewer held-out tickets at the target precision: activating "
+          + "it needs an acknowledgement (precedent activate " + version + " --acknowledge "
+          + "--reason TEXT)");
+    } else {
+      w.println("to put " + version + " in force: precedent activate " + version
+          + " --reason TEXT");
+    }
+    w.println("comparison: " + kept);
   }
 }
