@@ -28,7 +28,6 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.extension.RegisterExtension;
 import org.precedent.api.cli.PrecedentCommand;
-import org.precedent.api.testing.Http;
 import org.precedent.api.testing.Http.Caller;
 import org.precedent.api.testing.Http.Reply;
 import org.precedent.api.testing.ServiceForClass;
@@ -75,6 +74,7 @@ class ModelComparisonTest {
 
   @BeforeAll
   static void compared() throws Exception {
+    long start = System.nanoTime();
     copy = TrainedData.copy();
     heldOut = copy.resolve("heldout-" + HELD_OUT + ".csv");
     Path demo = TrainedData.root().resolve("demo-data");
@@ -104,6 +104,9 @@ class ModelComparisonTest {
     inForceAlone = VersionComparison.Figures.of(org.precedent.engine.evaluate.ReportFiles
         .readJson(dir.latestReport()));
     candidateAlone = alone(dir, "v-0003", parsed);
+    System.err.printf(java.util.Locale.ROOT, "comparison fixture: %d held-out tickets, two "
+        + "versions evaluated and one measured alone in %.1f s%n", HELD_OUT,
+        (System.nanoTime() - start) / 1e9);
   }
 
   @AfterAll
@@ -142,16 +145,7 @@ class ModelComparisonTest {
    * made for its files as the store makes one: a valid version, and a worse one.
    */
   static void flatVersion(Path data, String name) throws Exception {
-    Path dir = data.resolve("models").resolve(name);
-    TrainedData.copyTree(data.resolve("models/v-0001"), dir);
-    Path fusion = dir.resolve("fusion.json");
-    var json = Http.JSON.readTree(fusion.toFile());
-    for (var system : json.get("systems")) {
-      var calibration = (com.fasterxml.jackson.databind.node.ObjectNode) system.get("calibration");
-      calibration.put("a", 0.0);
-      calibration.put("b", 0.0);
-    }
-    Http.JSON.writeValue(fusion.toFile(), json);
+    Path dir = TestCopies.recalibrated(data, name, 0.0, 0.0);
     Map<String, String> sums = new TreeMap<>();
     try (var files = Files.list(dir)) {
       for (Path f : files.toList()) {

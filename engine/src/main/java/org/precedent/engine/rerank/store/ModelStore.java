@@ -37,7 +37,8 @@ import org.precedent.engine.rerank.tokens.Vocabulary;
  * training metrics and data fingerprint, whatever else the caller writes with it (the fusion model),
  * and a manifest of the SHA-256 of every one of those files. Loading and activating check every file
  * first, so a truncated, damaged or hand-edited file is refused by name rather than failing deep in
- * DL4J or, worse, being used.
+ * DL4J or, worse, being used. What is learnt of a version later, its comparisons with other
+ * versions ({@value #COMPARISONS}/), lies outside its manifest and checks itself.
  */
 public final class ModelStore {
 
