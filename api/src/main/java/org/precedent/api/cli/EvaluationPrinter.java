@@ -20,6 +20,9 @@ import org.precedent.knowledge.store.DataDir;
  * guaranteed threshold in force through the threshold audit.
  */
 final class EvaluationPrinter {
+  /** Answers listed whose approval would add coverage, most held-out tickets first. */
+  private static final int LISTED = 15;
+
   private EvaluationPrinter() {}
 
   /** Puts the fused system's guaranteed threshold in force, when there is one. */
@@ -68,10 +71,14 @@ final class EvaluationPrinter {
     w.printf(Locale.ROOT, "  approving these %d answers would add %.1f points of coverage (%s "
         + "right then):%n", r.additions().size(), r.pointsAdded(),
         share(r.afterApproving().precision()));
-    for (var a : r.additions()) {
+    for (var a : r.additions().subList(0, Math.min(LISTED, r.additions().size()))) {
       w.printf(Locale.ROOT, "    %-48s %3d tickets (%d right): %s%s%n", a.title(), a.tickets(),
           a.right(), String.join(", ", a.ticketIds()), a.tickets() > a.ticketIds().size()
               ? ", ..." : "");
+    }
+    if (r.additions().size() > LISTED) {
+      w.printf(Locale.ROOT, "    and %d more (the manager page lists them all)%n",
+          r.additions().size() - LISTED);
     }
   }
 

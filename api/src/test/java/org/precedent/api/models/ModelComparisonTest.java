@@ -104,6 +104,8 @@ class ModelComparisonTest {
     inForceAlone = VersionComparison.Figures.of(org.precedent.engine.evaluate.ReportFiles
         .readJson(dir.latestReport()));
     candidateAlone = alone(dir, "v-0003", parsed);
+    evaluateOutput.lines().filter(l -> l.startsWith("v-0003 (candidate)") || l.startsWith("  "))
+        .forEach(l -> System.err.println("comparison fixture | " + l));
     System.err.printf(java.util.Locale.ROOT, "comparison fixture: %d held-out tickets, two "
         + "versions evaluated and one measured alone in %.1f s%n", HELD_OUT,
         (System.nanoTime() - start) / 1e9);
@@ -201,6 +203,19 @@ class ModelComparisonTest {
     assertTrue(evaluateOutput.contains("v-0003 (candidate) beside v-0001 (in force) on the same "
         + HELD_OUT + " held-out tickets"), evaluateOutput);
     assertTrue(evaluateOutput.contains("needs an acknowledgement"), evaluateOutput);
+    // And the approval gate both ways at the guaranteed threshold: nothing is approved yet, so
+    // the gate sends nothing, and approving the drafted answers adds every reply.
+    var report = org.precedent.engine.evaluate.ReportFiles.readJson(new DataDir(copy)
+        .latestReport());
+    double t = c.inForceFigures().threshold();
+    long replied = report.outcomes().stream().filter(o -> o.replied(t)).count();
+    String share = String.format(java.util.Locale.ROOT, "%.1f%%", 100.0 * replied / HELD_OUT);
+    assertTrue(evaluateOutput.contains("without the approval gate: " + share + " answered"),
+        evaluateOutput);
+    assertTrue(evaluateOutput.contains("with the approval gate (0 approved answers): 0.0% "
+        + "answered, n/a right"), evaluateOutput);
+    assertTrue(evaluateOutput.contains(String.format(java.util.Locale.ROOT, "would add %.1f "
+        + "points of coverage", 100.0 * replied / HELD_OUT)), evaluateOutput);
     // The comparison file lies outside the version's manifest, which still checks out.
     new ModelStore(copy.resolve("models")).verify("v-0003");
   }
