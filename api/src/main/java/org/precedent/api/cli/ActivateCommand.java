@@ -58,13 +58,16 @@ final class ActivateCommand implements Callable<Integer> {
       err.println("precedent activate: " + refused.getMessage());
       return PrecedentCommand.FAILED;
     }
+    if (version.equals(verdict.inForce())) {
+      out.println("model " + version + " is already in force; nothing changed");
+      return 0;
+    }
     show(out, verdict);
     if (verdict.needsAcknowledgement()) {
       out.println("acknowledged: " + verdict.objection());
     }
     out.println("model " + version + " is in force"
-        + (verdict.inForce() == null || verdict.inForce().equals(version) ? ""
-            : " (was " + verdict.inForce() + ")"));
+        + (verdict.inForce() == null ? "" : " (was " + verdict.inForce() + ")"));
     return 0;
   }
 

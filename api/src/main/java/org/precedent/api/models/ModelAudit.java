@@ -64,6 +64,10 @@ public final class ModelAudit {
     if (verdict.needsAcknowledgement() && !acknowledged) {
       throw new Refused(verdict);
     }
+    if (version.equals(before)) {
+      // Nothing changes, so nothing is recorded.
+      return verdict;
+    }
     AtomicFiles.createPrivateDirectories(dir.serviceDatabase().getParent());
     String url = "jdbc:h2:file:" + dir.serviceDatabase() + ";WRITE_DELAY=0";
     try (Connection c = DriverManager.getConnection(url, "sa", "")) {

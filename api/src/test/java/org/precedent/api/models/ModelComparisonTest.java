@@ -377,6 +377,10 @@ class ModelComparisonTest {
         acknowledged), err.toString());
     assertTrue(out.toString().contains("model v-0003 is in force (was v-0001)"), out.toString());
     assertEquals("v-0003", Files.readString(copy.resolve("models/ACTIVE")).strip());
+    // Again: already in force, nothing recorded.
+    assertEquals(0, PrecedentCommand.run(new PrintWriter(out, true), new PrintWriter(err, true),
+        acknowledged));
+    assertTrue(out.toString().contains("model v-0003 is already in force"), out.toString());
     DataDir dir = new DataDir(copy);
     try (Connection c = DriverManager.getConnection("jdbc:h2:file:" + dir.serviceDatabase(),
         "sa", "");
