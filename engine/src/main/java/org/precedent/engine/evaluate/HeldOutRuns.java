@@ -61,7 +61,9 @@ public final class HeldOutRuns {
                 : ranked.candidates().get(0).candidate().group());
         bySystem.get(s).add(new EvaluatedTicket(q.ticketId(),
             q.category() == null ? "(none)" : q.category(), q.rightGroup() != null,
-            rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated));
+            rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated,
+            ranked.candidates().isEmpty() ? null
+                : ranked.candidates().get(0).candidate().group().id()));
       }
       progress.update(++done);
     }
