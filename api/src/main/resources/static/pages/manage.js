@@ -126,6 +126,45 @@
       el('td', { class: 'number' }, c.category in own ? threshold(own[c.category]) : '–'))));
   }
 
+  let approvalAsked = 0;  // the latest request, so that a slow reply never overwrites a newer one
+
+  /** Coverage and precision at the chosen threshold with and without the approval gate. */
+  async function loadApproval() {
+    const t = chosen().threshold;
+    const asked = ++approvalAsked;
+    const r = await call('GET', '/api/v1/threshold/approval?threshold=' + encodeURIComponent(String(t)));
+    if (asked !== approvalAsked) return;
+    const table = $('approval-additions');
+    if (r.status !== 200) {
+      $('approval-note').textContent = r.status === 404 ? problem(r) : 'Not available: ' + problem(r);
+      $('approval-figures').hidden = true;
+      table.hidden = true;
+      $('approval-gain').textContent = '';
+      return;
+    }
+    const a = r.json;
+    $('approval-figures').hidden = false;
+    $('approval-note').textContent = 'At threshold ' + threshold(a.threshold) + ', on the same '
+      + a.withoutGate.tickets + ' held-out tickets, with the library as it is now ('
+      + a.approvedAnswers + ' answers approved'
+      + (a.approvalRequired ? '' : '; the queue also sends drafted answers here') + ').';
+    $('gate-off-coverage').textContent = percent(a.withoutGate.coverage);
+    $('gate-off-precision').textContent = percent(a.withoutGate.precision);
+    $('gate-on-coverage').textContent = percent(a.withGate.coverage);
+    $('gate-on-precision').textContent = percent(a.withGate.precision);
+    const n = a.additions.length;
+    $('approval-gain').textContent = n === 0 ? 'No drafted answer is held back at this threshold.'
+      : 'Approving these ' + n + ' answer' + (n === 1 ? '' : 's') + ' would add '
+        + num(a.pointsAdded).toFixed(1) + ' points of coverage (' + percent(a.afterApproving.precision)
+        + ' of replies right then):';
+    table.hidden = n === 0;
+    table.tBodies[0].replaceChildren(...a.additions.map(x => el('tr', {},
+      el('th', { scope: 'row' }, x.title),
+      el('td', { class: 'number' }, x.tickets),
+      el('td', { class: 'number' }, x.right),
+      el('td', {}, x.ticketIds.join(', ') + (x.tickets > x.ticketIds.length ? ', …' : '')))));
+  }
+
   async function loadChanges() {
     const r = await call('GET', '/api/v1/threshold/changes');
     if (r.status !== 200) return;
@@ -198,15 +237,18 @@
       showInForce();
       showFigures();
       showCategories();
+      await loadApproval();
     }
     await loadChanges();
   }
 
   document.addEventListener('DOMContentLoaded', () => {
     $('threshold').addEventListener('input', showFigures);
+    $('threshold').addEventListener('change', loadApproval);
     $('use-recommended').addEventListener('click', () => {
       $('threshold').value = String(indexOf(recommended()));
       showFigures();
+      loadApproval();
       $('threshold').focus();
     });
     $('apply-form').addEventListener('submit', apply);

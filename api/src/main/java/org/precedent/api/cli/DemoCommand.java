@@ -146,6 +146,13 @@ final class DemoCommand implements Callable<Integer> {
         out.println("    " + e.getMessage() + "; starting afresh");
         trained = trainer.train(knowledge, false);
       }
+      if (!trained.activated()) {
+        // The demo's own directory, trained again on changed demo tickets: put in force through
+        // the model audit, as an acknowledged activation without a comparison.
+        org.precedent.api.models.ModelAudit.activateFromCommandLine(dataDir, trained.version(),
+            System.getProperty("user.name") + " (command line)",
+            "the demo: trained again on its tickets", true);
+      }
       out.println("    model " + trained.version() + " is active");
       out.println(trained.summary().indent(4).stripTrailing());
     }

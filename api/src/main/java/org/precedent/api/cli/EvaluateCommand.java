@@ -2,7 +2,15 @@ package org.precedent.api.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.time.Instant;
+import java.util.List;
 import java.util.concurrent.Callable;
+import org.precedent.api.models.Activations;
+import org.precedent.engine.evaluate.VersionComparison;
+import org.precedent.engine.evaluate.VersionComparisons;
+import org.precedent.engine.rerank.ModelLoadException;
+import org.precedent.engine.rerank.store.ModelStore;
+import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.HeldOutEvaluation;
@@ -29,6 +37,12 @@ import picocli.CommandLine.Spec;
             + "automatic replies reach the target precision with 95%% confidence.",
         "The right answer of each held-out ticket is its label (if a label column is mapped) or "
             + "the answer group its reply reuses; a ticket whose reply reuses none is out of scope.",
+        "When a newer version than the one in force exists (a candidate of train), or "
+            + "--candidate names one, it is measured on the same tickets too, and the two are "
+            + "compared side by side; the comparison is kept in the candidate's directory, where "
+            + "activate and the service's activation read it.",
+        "It also shows coverage and precision at the threshold with the answer library's "
+            + "approval gate and without it, and what approving drafted answers would add.",
         "Writes a JSON and an HTML report."})
 final class EvaluateCommand implements Callable<Integer> {
   @ParentCommand
@@ -59,6 +73,11 @@ final class EvaluateCommand implements Callable<Integer> {
       + "(recorded in the threshold audit; refused while the service runs on the data directory).")
   boolean apply;
 
+  @Option(names = "--candidate", paramLabel = "VERSION",
+      description = "The version to compare with the one in force (default: the newest, when it "
+          + "is not the one in force).")
+  String candidate;
+
   @Option(names = "--reason", paramLabel = "TEXT",
       description = "Why, for the threshold audit (default: the evaluation it comes from).")
   String reason;
@@ -86,7 +105,71 @@ final class EvaluateCommand implements Callable<Integer> {
             : "guaranteed threshold of the evaluation " + result.json() + " at target precision "
                 + target);
       }
+      EvaluationPrinter.approval(w, dataDir, result, active.thresholds().global());
+      compare(w, dataDir, active, result, parsed);
     }
     return 0;
+  }
+
+  /** Measures the candidate on the same tickets and keeps the comparison in its directory. */
+  private void compare(PrintWriter w, DataDir dataDir, InForce active, HeldOutEvaluation result,
+      Ingestor.ParsedExport parsed) throws java.io.IOException {
+    ModelStore store = new ModelStore(dataDir.models());
+    String version = candidate;
+    if (version == null) {
+      List<String> all = store.versions();
+      version = all.isEmpty() ? null : all.get(all.size() - 1);
+      if (version == null || version.equals(active.version())) {
+        return;
+      }
+    }
+    if (version.equals(active.version())) {
+      throw new IllegalArgumentException("--candidate " + version + " is the version in force");
+    }
+    InForce opened;
+    try {
+      store.verify(version);
+      if (store.fingerprint(version).equals(store.fingerprint(active.version()))) {
+        // The same files (a copy): the same figures, without measuring them twice.
+        keep(w, store, version, active, result.report(), result);
+        w.println("(" + version + " holds the same files as " + active.version() + ")");
+        return;
+      }
+      opened = InForce.open(dataDir, version);
+    } catch (ModelLoadException e) {
+      if (candidate != null) {
+        throw e;
+      }
+      w.println("candidate " + version + " cannot be measured: " + Messages.oneLine(e));
+      return;
+    }
+    try (InForce other = opened) {
+      var report = HeldOutEvaluation.measure(other, parsed, file.getFileName().toString(), target,
+          new Progress("evaluating " + version, "tickets", System.err));
+      keep(w, store, version, active, report, result);
+    }
+  }
+
+  private void keep(PrintWriter w, ModelStore store, String version, InForce active,
+      org.precedent.engine.evaluate.EvaluationReport report, HeldOutEvaluation result)
+      throws java.io.IOException {
+    var basis = new VersionComparison.Basis(store.fingerprint(version),
+        store.fingerprint(active.version()),
+        active.knowledge().generation().getFileName().toString(),
+        file.getFileName().toString(), AtomicFiles.sha256(file));
+    VersionComparison c = VersionComparison.of(version, report, active.version(),
+        result.report(), basis, Instant.now());
+    Path kept = VersionComparisons.write(store, c);
+    w.println();
+    Activations.lines(c).forEach(w::println);
+    if (c.candidateWorse()) {
+      w.println(version + " answers fewer held-out tickets at the target precision: activating "
+          + "it needs an acknowledgement (precedent activate " + version + " --acknowledge "
+          + "--reason TEXT)");
+    } else {
+      w.println("to put " + version + " in force: precedent activate " + version
+          + " --reason TEXT");
+    }
+    w.println("comparison: " + kept);
   }
 }

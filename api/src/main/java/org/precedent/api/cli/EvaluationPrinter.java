@@ -3,6 +3,9 @@ package org.precedent.api.cli;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.util.Locale;
+import java.util.List;
+import org.precedent.api.answers.ApprovalCoverage;
+import org.precedent.api.answers.StoredAnswer;
 import org.precedent.api.threshold.ThresholdAudit;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
@@ -17,6 +20,9 @@ import org.precedent.knowledge.store.DataDir;
  * guaranteed threshold in force through the threshold audit.
  */
 final class EvaluationPrinter {
+  /** Answers listed whose approval would add coverage, most held-out tickets first. */
+  private static final int LISTED = 15;
+
   private EvaluationPrinter() {}
 
   /** Puts the fused system's guaranteed threshold in force, when there is one. */
@@ -32,6 +38,52 @@ final class EvaluationPrinter {
     } else {
       w.println("no threshold could be guaranteed; the threshold in force is unchanged");
     }
+  }
+
+  /**
+   * Coverage and precision with the approval gate and without, at the guaranteed threshold (else
+   * the one in force), and what approving drafted answers would add.
+   */
+  static void approval(PrintWriter w, DataDir dataDir, HeldOutEvaluation result,
+      double inForce) {
+    var guaranteed = result.guaranteedThreshold();
+    double t = guaranteed.orElse(inForce);
+    List<StoredAnswer> library;
+    try {
+      library = ApprovalCoverage.libraryFromCommandLine(dataDir);
+    } catch (IOException e) {
+      w.println("approval gate: " + Messages.oneLine(e) + " (the manager page shows these "
+          + "figures while the service runs)");
+      return;
+    }
+    // The service's default: only approved answers are sent by the queue.
+    var r = ApprovalCoverage.of(result.report().outcomes(), t, library, true);
+    w.printf(Locale.ROOT, "%nat threshold %s (%s), of %d held-out tickets:%n",
+        ThresholdDecimals.of(t), guaranteed.isPresent() ? "guaranteed" : "in force",
+        r.withoutGate().tickets());
+    w.printf(Locale.ROOT, "  without the approval gate: %s answered automatically, %s right%n",
+        share(r.withoutGate().coverage()), share(r.withoutGate().precision()));
+    w.printf(Locale.ROOT, "  with the approval gate (%d approved answers): %s answered, %s right%n",
+        r.approvedAnswers(), share(r.withGate().coverage()), share(r.withGate().precision()));
+    if (r.additions().isEmpty()) {
+      return;
+    }
+    w.printf(Locale.ROOT, "  approving these %d answers would add %.1f points of coverage (%s "
+        + "right then):%n", r.additions().size(), r.pointsAdded(),
+        share(r.afterApproving().precision()));
+    for (var a : r.additions().subList(0, Math.min(LISTED, r.additions().size()))) {
+      w.printf(Locale.ROOT, "    %-48s %3d tickets (%d right): %s%s%n", a.title(), a.tickets(),
+          a.right(), String.join(", ", a.ticketIds()), a.tickets() > a.ticketIds().size()
+              ? ", ..." : "");
+    }
+    if (r.additions().size() > LISTED) {
+      w.printf(Locale.ROOT, "    and %d more (the manager page lists them all)%n",
+          r.additions().size() - LISTED);
+    }
+  }
+
+  private static String share(Double s) {
+    return s == null ? "n/a" : String.format(Locale.ROOT, "%.1f%%", 100 * s);
   }
 
   /** The systems side by side, the recommendation, the safety hand-offs and the report files. */

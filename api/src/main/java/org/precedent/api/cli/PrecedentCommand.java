@@ -10,6 +10,7 @@ import picocli.CommandLine.ScopeType;
 @Command(name = "precedent", mixinStandardHelpOptions = true, version = "precedent 0.1.0",
     description = "Proposes past answers to new help-desk questions, learned from resolved tickets.",
     subcommands = {IngestCommand.class, AskCommand.class, TrainCommand.class, EvaluateCommand.class,
+        ActivateCommand.class,
         ServeCommand.class, TriageCommand.class,
         DemoCommand.class,
         BenchmarkCommand.class, CommandLine.HelpCommand.class})

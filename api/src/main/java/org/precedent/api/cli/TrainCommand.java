@@ -1,6 +1,9 @@
 package org.precedent.api.cli;
 
 import java.io.PrintWriter;
+import java.nio.file.Path;
+import org.precedent.api.models.ModelAudit;
+import org.precedent.engine.rerank.store.ModelStore;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
@@ -18,8 +21,10 @@ import picocli.CommandLine.Spec;
 @Command(name = "train", mixinStandardHelpOptions = true,
     description = {"Trains the model on the stored tickets.",
         "The reranker learns from most tickets; fusion and calibration are fitted on tickets kept "
-            + "apart; the result becomes the active model version. Checkpoints are written as it "
-            + "goes; --resume continues an interrupted run."})
+            + "apart. The first version goes in force at once; a later one is a candidate until "
+            + "evaluate compares it with the version in force and activate puts it in force "
+            + "(or --activate here). Checkpoints are written as it goes; --resume continues an "
+            + "interrupted run."})
 final class TrainCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -29,6 +34,15 @@ final class TrainCommand implements Callable<Integer> {
 
   @Option(names = "--resume", description = "Continue the last interrupted run.")
   boolean resume;
+
+  @Option(names = "--activate", description = "Put the new version in force at once, without "
+      + "a comparison (recorded in the model audit; refused while the service runs on the data "
+      + "directory).")
+  boolean activate;
+
+  @Option(names = "--reason", paramLabel = "TEXT",
+      description = "Why, for the model audit, with --activate.")
+  String reason;
 
   @Option(names = "--epochs", paramLabel = "N", description = "Most epochs (default ${DEFAULT-VALUE}).",
       defaultValue = "8")
@@ -72,9 +86,32 @@ final class TrainCommand implements Callable<Integer> {
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
     TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
-    out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),
-        dataDir.models().resolve(report.version()));
+    Path dir = dataDir.models().resolve(report.version());
     out.println(report.summary());
+    if (report.activated()) {
+      out.printf(Locale.ROOT, "model %s is in force, the first version (%s)%n", report.version(),
+          dir);
+      return 0;
+    }
+    String inForce = new ModelStore(dataDir.models()).activeVersion().orElse("none");
+    if (!activate) {
+      out.printf(Locale.ROOT, "model %s is a candidate (%s); %s stays in force.%n"
+          + "Compare them on held-out tickets: precedent evaluate FILE%n"
+          + "then put it in force: precedent activate %s --reason TEXT%n", report.version(), dir,
+          inForce, report.version());
+      return 0;
+    }
+    try {
+      ModelAudit.activateFromCommandLine(dataDir, report.version(),
+          System.getProperty("user.name") + " (command line)", reason != null && !reason.isBlank()
+              ? reason : "train --activate: put in force without a comparison", true);
+    } catch (java.io.IOException e) {
+      spec.commandLine().getErr().println("precedent train: " + Messages.oneLine(e)
+          + "; model " + report.version() + " stays a candidate");
+      return PrecedentCommand.FAILED;
+    }
+    out.printf(Locale.ROOT, "model %s is in force (was %s; not compared with it) (%s)%n",
+        report.version(), inForce, dir);
     return 0;
   }
 }

@@ -11,7 +11,10 @@ import java.util.Map;
 import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.InForceHolder;
 import org.precedent.api.system.ReplicaSync;
+import org.precedent.engine.evaluate.VersionComparisons;
 import org.springframework.http.HttpStatus;
+import org.springframework.http.ProblemDetail;
+import org.springframework.web.ErrorResponseException;
 import org.springframework.http.MediaType;
 import org.springframework.jdbc.core.JdbcTemplate;
 import org.springframework.transaction.support.TransactionTemplate;
@@ -28,6 +31,8 @@ import org.springframework.web.server.ResponseStatusException;
  */
 @RestController
 class ModelsController {
+  private static final com.fasterxml.jackson.databind.ObjectMapper JSON =
+      new com.fasterxml.jackson.databind.ObjectMapper();
   private final InForceHolder models;
   private final JdbcTemplate db;
   private final AuditColumns audit;
@@ -49,10 +54,29 @@ class ModelsController {
     out.put("active", models.version());
     out.put("versions", models.versions());
     out.put("activations", db.query("SELECT activated_by, activated_at, old_version, "
-        + "new_version, reason FROM model_activation ORDER BY id DESC", (rs, n) -> Map.of(
-            "activatedBy", rs.getString(1), "activatedAt", rs.getTimestamp(2).toInstant().toString(),
-            "from", rs.getString(3), "to", rs.getString(4), "reason", rs.getString(5))));
+        + "new_version, reason, comparison, acknowledged FROM model_activation ORDER BY id DESC",
+        (rs, n) -> {
+          Map<String, Object> row = new LinkedHashMap<>();
+          row.put("activatedBy", rs.getString(1));
+          row.put("activatedAt", rs.getTimestamp(2).toInstant().toString());
+          row.put("from", rs.getString(3));
+          row.put("to", rs.getString(4));
+          row.put("reason", rs.getString(5));
+          row.put("comparison", comparisonJson(rs.getString(6)));
+          row.put("acknowledged", rs.getBoolean(7));
+          return row;
+        }));
     return out;
+  }
+
+  /**
+   * What activating {@code version} would show: its comparison with the version in force, and
+   * why it would need an acknowledgement, if it would.
+   */
+  @GetMapping("/api/v1/models/{version}/comparison")
+  Map<String, Object> comparison(@PathVariable("version") String version) throws IOException {
+    known(version);
+    return view(Activations.judge(models.dataDir(), models.version(), version));
   }
 
   @PostMapping(path = "/api/v1/models/{version}/activation",
@@ -60,14 +84,60 @@ class ModelsController {
   Map<String, Object> activate(@PathVariable("version") String version,
       @Valid @RequestBody ActivationRequest request, Principal who) throws IOException {
     checkReason(request);
+    known(version);
+    Activations.Verdict verdict = Activations.judge(models.dataDir(), models.version(), version);
+    if (verdict.needsAcknowledgement() && !request.acknowledges()) {
+      ProblemDetail p = ProblemDetail.forStatusAndDetail(HttpStatus.CONFLICT, "not activated: "
+          + verdict.objection() + ". To activate it all the same, send \"acknowledged\": true "
+          + "with the reason; the model in force is unchanged");
+      p.setTitle("Activation needs an acknowledgement");
+      p.setProperty("candidate", verdict.candidate());
+      p.setProperty("inForce", verdict.inForce());
+      p.setProperty("comparison", verdict.comparison());
+      throw new ErrorResponseException(HttpStatus.CONFLICT, p, null);
+    }
+    Map<String, Object> out = switchTo(version, request.reason(), who.getName(),
+        verdict.comparison() == null ? null : VersionComparisons.compact(verdict.comparison()),
+        verdict.needsAcknowledgement());
+    out.put("comparison", verdict.comparison());
+    out.put("acknowledged", verdict.needsAcknowledgement());
+    return out;
+  }
+
+  private void known(String version) throws IOException {
     if (!models.versions().contains(version)) {
       throw new ResponseStatusException(HttpStatus.NOT_FOUND, "no model version '" + version
           + "'; versions: " + String.join(", ", models.versions()));
     }
-    return switchTo(version, request.reason(), who.getName());
   }
 
-  /** Goes back to the version in force before the last switch (else the one before by number). */
+  private static Map<String, Object> view(Activations.Verdict verdict) {
+    Map<String, Object> out = new LinkedHashMap<>();
+    out.put("candidate", verdict.candidate());
+    out.put("inForce", verdict.inForce());
+    out.put("comparison", verdict.comparison());
+    out.put("needsAcknowledgement", verdict.needsAcknowledgement());
+    out.put("objection", verdict.objection());
+    return out;
+  }
+
+  /** The comparison an audit row kept, as JSON again (an unreadable one as its text). */
+  private static Object comparisonJson(String kept) {
+    if (kept == null) {
+      return null;
+    }
+    try {
+      return JSON.readTree(kept);
+    } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
+      return kept;
+    }
+  }
+
+  /**
+   * Goes back to the version in force before the last switch (else the one before by number).
+   * No comparison is asked for: going back is how a bad activation is undone, and the version was
+   * in force before; the audit row says there was none.
+   */
   @PostMapping(path = "/api/v1/models/rollback", consumes = MediaType.APPLICATION_JSON_VALUE)
   Map<String, Object> rollback(@Valid @RequestBody ActivationRequest request, Principal who)
       throws IOException {
@@ -85,22 +155,21 @@ class ModelsController {
       throw new ResponseStatusException(HttpStatus.CONFLICT,
           "no earlier model version than " + now + " to go back to");
     }
-    return switchTo(target, request.reason(), who.getName());
+    return switchTo(target, request.reason(), who.getName(), null, false);
   }
 
   private void checkReason(ActivationRequest request) {
     audit.check("reason", request.reason().strip(), "model_activation", "reason");
   }
 
-  private Map<String, Object> switchTo(String version, String reason, String who)
-      throws IOException {
+  private Map<String, Object> switchTo(String version, String reason, String who,
+      String comparison, boolean acknowledged) throws IOException {
     String before = models.activate(version);
     Instant at = Instant.now();
     // The audit record and the row every replica reads: both or neither.
     tx.executeWithoutResult(status -> {
-      db.update("INSERT INTO model_activation (activated_by, activated_at, old_version, "
-          + "new_version, reason) VALUES (?, ?, ?, ?, ?)", who, Timestamp.from(at), before,
-          version, reason.strip());
+      db.update(ModelAudit.INSERT, who, Timestamp.from(at), before, version, reason.strip(),
+          comparison, acknowledged);
       replicas.publishVersion(version);
     });
     Map<String, Object> out = new LinkedHashMap<>();

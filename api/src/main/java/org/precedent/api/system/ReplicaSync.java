@@ -86,6 +86,14 @@ public class ReplicaSync implements SmartLifecycle {
     publish(db, THRESHOLDS, write(new ObjectMapper(), t));
   }
 
+  /**
+   * Records a model version put in force outside the service (the command line's audited
+   * activation) as the shared one, in the caller's transaction on {@code db}.
+   */
+  public static void publishVersion(JdbcTemplate db, String version) {
+    publish(db, MODEL, version);
+  }
+
   private static long publish(JdbcTemplate db, String name, String content) {
     Timestamp now = Timestamp.from(Instant.now());
     String update = "UPDATE shared_in_force SET content = ?, revision = revision + 1, "

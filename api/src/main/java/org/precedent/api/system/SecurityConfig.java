@@ -93,7 +93,7 @@ class SecurityConfig {
                 .hasAnyRole("QUEUE", "AGENT", "MANAGER")
             .requestMatchers(POST, "/api/v1/feedback").hasRole("AGENT")
             .requestMatchers(GET, "/api/v1/threshold", "/api/v1/threshold/changes",
-                "/api/v1/threshold/evaluation").hasRole("MANAGER")
+                "/api/v1/threshold/evaluation", "/api/v1/threshold/approval").hasRole("MANAGER")
             .requestMatchers(PUT, "/api/v1/threshold").hasRole("MANAGER")
             .requestMatchers("/api/v1/models", "/api/v1/models/**").hasRole("MANAGER")
             // The answer library: agents read it, managers change it.

@@ -11,6 +11,9 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
+import org.precedent.api.answers.AnswerGate;
+import org.precedent.api.answers.AnswerLibrary;
+import org.precedent.api.answers.ApprovalCoverage;
 import org.precedent.api.system.AuditColumns;
 import org.precedent.api.system.FieldProblem;
 import org.precedent.api.system.Limits;
@@ -27,6 +30,7 @@ import org.springframework.transaction.support.TransactionTemplate;
 import org.springframework.web.bind.annotation.GetMapping;
 import org.springframework.web.bind.annotation.PutMapping;
 import org.springframework.web.bind.annotation.RequestBody;
+import org.springframework.web.bind.annotation.RequestParam;
 import org.springframework.web.bind.annotation.RestController;
 import org.springframework.web.server.ResponseStatusException;
 
@@ -38,9 +42,13 @@ class ThresholdController {
   private final AuditColumns audit;
   private final ReplicaSync replicas;
   private final TransactionTemplate tx;
+  private final AnswerLibrary library;
+  private final AnswerGate gate;
 
   ThresholdController(InForceHolder models, JdbcTemplate db, AuditColumns audit,
-      ReplicaSync replicas, TransactionTemplate tx) {
+      ReplicaSync replicas, TransactionTemplate tx, AnswerLibrary library, AnswerGate gate) {
+    this.library = library;
+    this.gate = gate;
     this.models = models;
     this.db = db;
     this.audit = audit;
@@ -129,6 +137,28 @@ class ThresholdController {
           m.put("reason", rs.getString(5));
           return m;
         });
+  }
+
+  /**
+   * The latest evaluation at {@code threshold} (default: the global threshold in force) with and
+   * without the approval gate, from the library as it is now, and what approving each drafted
+   * answer would add.
+   */
+  @GetMapping("/api/v1/threshold/approval")
+  ApprovalCoverage.Report approval(
+      @RequestParam(name = "threshold", required = false) Double threshold) throws IOException {
+    if (threshold != null && !(threshold >= 0 && threshold <= 1)) {
+      throw new FieldProblem("threshold", "must be between 0 and 1");
+    }
+    EvaluationReport report = evaluation();
+    if (report.outcomes().isEmpty()) {
+      throw new ResponseStatusException(HttpStatus.NOT_FOUND, "the latest evaluation was made "
+          + "before each held-out ticket's answer was kept: run 'precedent evaluate' again");
+    }
+    library.syncIfNew(models.dataDir());
+    return ApprovalCoverage.of(report.outcomes(),
+        threshold != null ? threshold : models.thresholds().global(), library.list(null, null),
+        gate.approvalRequired());
   }
 
   /** The latest evaluation report ({@code precedent evaluate}), to choose a threshold by. */

@@ -67,8 +67,9 @@ class ModelSwapTest {
     }
     for (int swap = 0; swap < 6; swap++) {
       String to = swap % 2 == 0 ? "v-0002" : "v-0001";
+      // Two copies of one version, never compared with each other: acknowledged.
       Reply r = http().post("/api/v1/models/" + to + "/activation",
-          Map.of("reason", "swap " + swap + " under load"), Caller.MANAGER);
+          Map.of("reason", "swap " + swap + " under load", "acknowledged", true), Caller.MANAGER);
       assertEquals(200, r.status(), r.raw().body());
       Thread.sleep(300);
     }
@@ -85,7 +86,7 @@ class ModelSwapTest {
     String start = active();
     String other = start.equals("v-0001") ? "v-0002" : "v-0001";
     assertEquals(200, http().post("/api/v1/models/" + other + "/activation",
-        Map.of("reason", "try the other one"), Caller.MANAGER).status());
+        Map.of("reason", "try the other one", "acknowledged", true), Caller.MANAGER).status());
     assertEquals(other, active());
     assertEquals(other, Files.readString(service.data().resolve("models/ACTIVE")).strip());
     Reply back = http().post("/api/v1/models/rollback", Map.of("reason", "worse"), Caller.MANAGER);

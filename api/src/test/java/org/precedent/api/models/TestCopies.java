@@ -25,16 +25,25 @@ final class TestCopies {
    * confidence of 1.0 (each system's Platt map made flat at its top), still valid JSON.
    */
   static void overconfidentVersion(Path data, String name) throws IOException {
+    recalibrated(data, name, 0.0, -50.0);
+  }
+
+  /**
+   * A copy of v-0001 with every system's Platt parameters set to {@code a} and {@code b} (the
+   * confidence is 1 / (1 + exp(a f + b))), its manifest left as it was.
+   */
+  static Path recalibrated(Path data, String name, double a, double b) throws IOException {
     Path dir = data.resolve("models").resolve(name);
     TrainedData.copyTree(data.resolve("models/v-0001"), dir);
     Path fusion = dir.resolve("fusion.json");
     var json = Http.JSON.readTree(fusion.toFile());
     for (var system : json.get("systems")) {
       var calibration = (com.fasterxml.jackson.databind.node.ObjectNode) system.get("calibration");
-      calibration.put("a", 0.0);
-      calibration.put("b", -50.0);
+      calibration.put("a", a);
+      calibration.put("b", b);
     }
     Http.JSON.writeValue(fusion.toFile(), json);
+    return dir;
   }
 
   /**

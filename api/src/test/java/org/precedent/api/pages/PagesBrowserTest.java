@@ -354,6 +354,69 @@ class PagesBrowserTest {
   }
 
   @Test
+  void theThresholdPageShowsCoverageWithAndWithoutTheApprovalGateAndWhatApprovingWouldAdd() {
+    JsonNode report = service.http().get("/api/v1/threshold/evaluation", Caller.MANAGER).json();
+    JsonNode fused = report.get("systems").get(report.get("systems").size() - 1);
+    double guaranteed = fused.get("recommendation").get("threshold").asDouble();
+    String at = "/api/v1/threshold/approval?threshold=" + guaranteed;
+    JsonNode before = service.http().get(at, Caller.MANAGER).json();
+    assertTrue(before.get("additions").size() >= 2, before.toString());
+    // One held-back answer gets a hostile title, another is approved.
+    String hostileId = before.get("additions").get(0).get("groupId").asText();
+    String approvedId = before.get("additions").get(1).get("groupId").asText();
+    String hostile = "<img src=x onerror=window.__pwned=1><b>bins</b> & \"collection\"";
+    JsonNode answer = service.http().get("/api/v1/answers/" + hostileId, Caller.MANAGER).json()
+        .get("answer");
+    assertEquals(200, service.http().put("/api/v1/answers/" + hostileId, Map.of("version",
+        answer.get("version").asInt(), "title", hostile, "text", answer.get("text").asText(),
+        "reason", "a title with markup"), Caller.MANAGER).status());
+    int version = service.http().get("/api/v1/answers/" + approvedId, Caller.MANAGER).json()
+        .get("answer").get("version").asInt();
+    assertEquals(200, service.http().post("/api/v1/answers/" + approvedId + "/approval",
+        Map.of("version", version, "reason", "checked"), Caller.MANAGER).status());
+    JsonNode approval = service.http().get(at, Caller.MANAGER).json();
+
+    // Recounted here from the report's own outcomes (the fused system's answer per ticket):
+    // without the gate every reply counts, with it only the approved answer's.
+    int tickets = report.get("tickets").asInt();
+    int replied = 0;
+    int repliedApproved = 0;
+    for (JsonNode o : report.get("outcomes")) {
+      boolean sent = !o.get("safetyGate").asBoolean() && !o.get("answerGroup").isNull()
+          && o.get("confidence").asDouble() >= guaranteed;
+      replied += sent ? 1 : 0;
+      repliedApproved += sent && o.get("answerGroup").asText().equals(approvedId) ? 1 : 0;
+    }
+    assertEquals(replied, approval.get("withoutGate").get("replied").asInt());
+    assertEquals(repliedApproved, approval.get("withGate").get("replied").asInt());
+    assertTrue(repliedApproved > 0 && repliedApproved < replied, approval.toString());
+    // Without the gate the page's figure is the service row's at that threshold.
+    JsonNode row = fused.get("service").get(indexOf(fused.get("service"), guaranteed));
+    assertEquals(row.get("answered").asInt(), replied);
+
+    signInAsManager();
+    browser.find("#use-recommended").click();
+    browser.showing("#approval-note", "At threshold " + ThresholdDecimals.of(guaranteed));
+    browser.showing("#gate-on-coverage", percent((double) repliedApproved / tickets));
+    assertEquals(percent((double) replied / tickets), browser.find("#gate-off-coverage").getText());
+    assertEquals(browser.find("#answered-share").getText(),
+        browser.find("#gate-off-coverage").getText());
+    assertEquals(percent(approval.get("withGate").get("precision").asDouble()),
+        browser.find("#gate-on-precision").getText());
+    assertTrue(browser.find("#approval-gain").getText().startsWith("Approving these "
+        + approval.get("additions").size() + " answers would add " + String.format(Locale.ROOT,
+            "%.1f", approval.get("pointsAdded").asDouble()) + " points of coverage"),
+        browser.find("#approval-gain").getText());
+    List<WebElement> titles = browser.all("#approval-additions tbody th");
+    assertEquals(approval.get("additions").size(), titles.size());
+    assertTrue(titles.stream().anyMatch(t -> t.getText().equals(hostile)),
+        titles.stream().map(WebElement::getText).toList().toString());
+    assertTrue(browser.all("#approval-additions img, #approval-additions b").isEmpty());
+    assertEquals("undefined", browser.script("return typeof window.__pwned"));
+    browser.screenshot(Path.of("/tmp/precedent-manage-approval.png"));
+  }
+
+  @Test
   void theThresholdPageCountsWhatTheSafetyGateHandsOffAsHandedOff() {
     signInAsManager();
     JsonNode fused = fusedSystem();

@@ -72,8 +72,10 @@ class SecurityTest {
         new Endpoint("PUT", "/api/v1/threshold", Set.of("manager")),
         new Endpoint("GET", "/api/v1/threshold/changes", Set.of("manager")),
         new Endpoint("GET", "/api/v1/threshold/evaluation", Set.of("manager")),
+        new Endpoint("GET", "/api/v1/threshold/approval", Set.of("manager")),
         new Endpoint("GET", "/api/v1/models", Set.of("manager")),
         new Endpoint("POST", "/api/v1/models/v-0002/activation", Set.of("manager")),
+        new Endpoint("GET", "/api/v1/models/v-0002/comparison", Set.of("manager")),
         new Endpoint("POST", "/api/v1/models/rollback", Set.of("manager")),
         new Endpoint("GET", "/actuator/metrics", Set.of("manager")));
   }

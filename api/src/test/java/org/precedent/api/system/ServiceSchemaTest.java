@@ -19,6 +19,7 @@ class ServiceSchemaTest {
   private static final String[][] AUDIT_COLUMNS = {
       {"threshold_change", "reason"}, {"threshold_change", "old_value"},
       {"threshold_change", "new_value"}, {"model_activation", "reason"},
+      {"model_activation", "comparison"},
       {"suggestion_feedback", "final_text"}, {"queue_ticket", "question"}};
 
   private static DataSource h2() {
@@ -43,6 +44,8 @@ class ServiceSchemaTest {
     }
     // The widths V1__init.sql states (threshold_change.reason VARCHAR(2000)).
     assertEquals(2000, onPostgres.width("threshold_change", "reason"));
+    // V4__activation_comparison.sql: model_activation.comparison VARCHAR(4000).
+    assertEquals(4000, onPostgres.width("model_activation", "comparison"));
   }
 
   @Test
@@ -52,9 +55,29 @@ class ServiceSchemaTest {
       ServiceSchema.migrate(db);
       ServiceSchema.migrate(db);
       JdbcTemplate t = new JdbcTemplate(db);
-      // Each script applied once: V1, V2, V3 (an empty database is not baselined).
-      assertEquals(List.of("1", "2", "3"), t.queryForList("SELECT \"version\" FROM \"flyway_schema_history\""
+      // Each script applied once: V1 to V4 (an empty database is not baselined).
+      assertEquals(List.of("1", "2", "3", "4"), t.queryForList("SELECT \"version\" FROM \"flyway_schema_history\""
           + " WHERE \"type\" = 'SQL' ORDER BY \"installed_rank\"", String.class));
+    }
+  }
+
+  /** V4 on a row written before it: no comparison, not acknowledged, on both databases. */
+  @Test
+  void anActivationRecordedBeforeV4HasNoComparisonAndNoAcknowledgement() {
+    DataSource h2 = h2();
+    org.flywaydb.core.Flyway.configure().dataSource(h2).locations("classpath:db/migration")
+        .target("3").load().migrate();
+    // PostgreSQL, migrated by @BeforeEach: taken back to V3 by hand.
+    JdbcTemplate pg = new JdbcTemplate(postgres.dataSource());
+    pg.execute("ALTER TABLE model_activation DROP COLUMN comparison, DROP COLUMN acknowledged");
+    pg.update("DELETE FROM \"flyway_schema_history\" WHERE \"version\" = '4'");
+    for (DataSource db : List.of(h2, postgres.dataSource())) {
+      JdbcTemplate t = new JdbcTemplate(db);
+      t.update("INSERT INTO model_activation (activated_by, activated_at, old_version, "
+          + "new_version, reason) VALUES ('sam', CURRENT_TIMESTAMP, 'v-0001', 'v-0002', 'old')");
+      ServiceSchema.migrate(db);
+      assertEquals(List.of("null false"), t.query("SELECT comparison, acknowledged FROM "
+          + "model_activation", (rs, n) -> rs.getString(1) + " " + rs.getBoolean(2)));
     }
   }
 

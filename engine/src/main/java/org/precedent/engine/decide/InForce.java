@@ -52,14 +52,24 @@ public final class InForce implements Closeable {
 
   /** Opens what is in force; a clear IOException says what is missing. */
   public static InForce open(DataDir dir) throws IOException {
+    return open(dir, null);
+  }
+
+  /**
+   * Opens the knowledge, safety rules and thresholds in force with model {@code version} (null: the
+   * active one), as the service would decide were that version activated: how {@code evaluate}
+   * measures a candidate on the same held-out tickets as the version in force.
+   */
+  public static InForce open(DataDir dir, String modelVersion) throws IOException {
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
     Retriever retriever = Retriever.open(knowledge);
     DenseLeg dense = null;
     try {
       ModelStore store = new ModelStore(dir.models());
-      String version = store.activeVersion().orElseThrow(() -> new IOException(
-          "no trained model in " + dir.root() + " yet: run 'precedent train' first"));
+      String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
+          () -> new IOException("no trained model in " + dir.root()
+              + " yet: run 'precedent train' first"));
       RerankerModel model = store.load(version);
       FusionModel fusion = FusionModel.load(store.directory(version));
       dense = openDenseLeg(knowledge, store.directory(version), fusion);

@@ -15,6 +15,9 @@ import java.util.Objects;
  * @param targetPrecision the precision the threshold recommendation had to guarantee
  * @param delta           allowed chance that the guarantee fails
  * @param systems         one entry per system, in the order given
+ * @param outcomes        the last system's (the fused one's, which the service decides with)
+ *                        answer per ticket, in the order run; empty in reports made before it was
+ *                        kept
  */
 public record EvaluationReport(
     String dataset,
@@ -23,10 +26,12 @@ public record EvaluationReport(
     int inScopeTickets,
     double targetPrecision,
     double delta,
-    List<SystemReport> systems) {
+    List<SystemReport> systems,
+    List<HeldOutOutcome> outcomes) {
   public EvaluationReport {
     Objects.requireNonNull(dataset, "dataset");
     Objects.requireNonNull(createdAt, "created time");
     systems = List.copyOf(systems);
+    outcomes = outcomes == null ? List.of() : List.copyOf(outcomes);
   }
 }

@@ -62,7 +62,10 @@ public final class EvaluationReports {
     }
     List<EvaluatedTicket> first = all.get(0).tickets();
     int inScope = (int) first.stream().filter(EvaluatedTicket::inScope).count();
-    return new EvaluationReport(dataset, createdAt, first.size(), inScope, targetPrecision, delta, systems);
+    List<HeldOutOutcome> outcomes = all.get(all.size() - 1).tickets().stream()
+        .map(HeldOutOutcome::of).toList();
+    return new EvaluationReport(dataset, createdAt, first.size(), inScope, targetPrecision, delta,
+        systems, outcomes);
   }
 
   private static void checkComparable(List<SystemRun> runs) {

@@ -46,9 +46,7 @@ public record HeldOutEvaluation(EvaluationReport report, List<HeldOutQuestion> q
       Ingestor.ParsedExport heldOut, String dataset, double target, Path out,
       EvaluationReport previous, Progress progress) throws IOException {
     List<HeldOutQuestion> questions = truth(active, heldOut.tickets());
-    var runs = HeldOutRuns.asServed(active.pipeline(), questions, progress);
-    EvaluationReport report = EvaluationReports.build(dataset + " (model " + active.version()
-        + ")", runs, target);
+    EvaluationReport report = measure(active, questions, dataset, target, progress);
     AtomicFiles.createPrivateDirectories(out);
     AtomicFiles.createPrivateDirectories(dataDir.reports());
     String stamp = DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss").withZone(ZoneOffset.UTC)
@@ -60,6 +58,21 @@ public record HeldOutEvaluation(EvaluationReport report, List<HeldOutQuestion> q
     ReportFiles.writeHtml(HtmlReport.render(report, previous), html);
     return new HeldOutEvaluation(report, questions, html, json,
         fused(report).safetyHandOffs());
+  }
+
+  /**
+   * Measures the version {@code opened} holds on held-out tickets, writing nothing: how a candidate
+   * version is measured beside the version in force, on the same tickets and the same truth.
+   */
+  public static EvaluationReport measure(InForce opened, Ingestor.ParsedExport heldOut,
+      String dataset, double target, Progress progress) {
+    return measure(opened, truth(opened, heldOut.tickets()), dataset, target, progress);
+  }
+
+  private static EvaluationReport measure(InForce opened, List<HeldOutQuestion> questions,
+      String dataset, double target, Progress progress) {
+    var runs = HeldOutRuns.asServed(opened.pipeline(), questions, progress);
+    return EvaluationReports.build(dataset + " (model " + opened.version() + ")", runs, target);
   }
 
   /**

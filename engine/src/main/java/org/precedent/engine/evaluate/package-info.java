@@ -19,7 +19,12 @@
  * org.precedent.engine.evaluate.HeldOutEvaluation} labels held-out tickets with their truth, runs
  * them and writes the reports where the data directory says; {@link
  * org.precedent.engine.evaluate.ClincEvaluation} runs the open CLINC150 benchmark the same way,
- * training on its train split. The package depends on {@code engine.measure}, {@code engine.decide},
+ * training on its train split. {@link org.precedent.engine.evaluate.VersionComparison} sets a
+ * candidate model version beside the version in force on the same held-out tickets, and {@link
+ * org.precedent.engine.evaluate.VersionComparisons} keeps it, checksummed, in the candidate's
+ * directory; a report keeps the fused system's answer per ticket ({@link
+ * org.precedent.engine.evaluate.HeldOutOutcome}) for the approval gate's figures. The package
+ * depends on {@code engine.rerank} (the model store), {@code engine.measure}, {@code engine.decide},
  * {@code engine.learn}, {@code knowledge.datasets}, {@code engine.candidates}, {@code engine.fusion}, {@code
  * knowledge.ingest}, {@code knowledge.group}, {@code knowledge.store}, {@code knowledge.io} and
  * Jackson; the figures, the command line and the service's threshold page depend on it.

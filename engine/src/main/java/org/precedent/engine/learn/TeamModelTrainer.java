@@ -102,8 +102,8 @@ public final class TeamModelTrainer {
   }
 
   /**
-   * Trains the reranker on {@code pairs}, fits fusion on {@code fusion}, writes a version and
-   * makes it active.
+   * Trains the reranker on {@code pairs}, fits fusion on {@code fusion} and writes a version,
+   * active when no version is in force yet, else a candidate ({@link TrainingReport#activated}).
    */
   public TrainingReport train(Knowledge knowledge, List<TrainingPair> pairs,
       List<FusionQuestion> fusion, boolean resume) throws IOException {
@@ -135,8 +135,13 @@ public final class TeamModelTrainer {
         dense.save(dir);
       }
     });
-    store.activate(version);
-    return new TrainingReport(version, trained.metrics(), fit.summary());
+    // A version in force was measured and chosen: a new one earns its place by comparison
+    // (evaluate, then an activation that shows it); only the first one goes in force at once.
+    boolean first = store.activeVersion().isEmpty();
+    if (first) {
+      store.activate(version);
+    }
+    return new TrainingReport(version, first, trained.metrics(), fit.summary());
   }
 
   /**

@@ -6,11 +6,13 @@ import org.precedent.engine.rerank.TrainingMetrics;
 /**
  * What one training run produced.
  *
- * @param version       the model version written and made active
+ * @param version       the model version written
+ * @param activated     whether it was made active (no version was in force before); else it is a
+ *                      candidate beside the version in force
  * @param reranker      the reranker's training figures
  * @param fusionSummary the fitted fusion and calibration, in words
  */
-public record TrainingReport(String version, TrainingMetrics reranker, String fusionSummary) {
+public record TrainingReport(String version, boolean activated, TrainingMetrics reranker, String fusionSummary) {
   public String summary() {
     return String.format(Locale.ROOT, "reranker: %d pairs trained, %d validation, %d epochs in %.0f s, "
             + "%.0f target tokens/s, validation loss %.3f, anti-LM lambda %.1f, validation top-1 %.3f, "

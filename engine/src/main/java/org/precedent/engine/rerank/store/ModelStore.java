@@ -37,7 +37,8 @@ import org.precedent.engine.rerank.tokens.Vocabulary;
  * training metrics and data fingerprint, whatever else the caller writes with it (the fusion model),
  * and a manifest of the SHA-256 of every one of those files. Loading and activating check every file
  * first, so a truncated, damaged or hand-edited file is refused by name rather than failing deep in
- * DL4J or, worse, being used.
+ * DL4J or, worse, being used. What is learnt of a version later, its comparisons with other
+ * versions ({@value #COMPARISONS}/), lies outside its manifest and checks itself.
  */
 public final class ModelStore {
 
@@ -48,6 +49,11 @@ public final class ModelStore {
   private static final String ANTI_LM_LAMBDA = "antiLmLambda";
   static final String METRICS = "metrics.json";
   static final String MANIFEST = "manifest.properties";
+  /**
+   * Where evaluations of a version against others are kept: written after the version is made, so
+   * outside its manifest (each file carries its own checksum, engine.evaluate.VersionComparisons).
+   */
+  public static final String COMPARISONS = "comparisons";
   private static final Pattern VERSION = Pattern.compile("v-\\d{4,}");
 
   private final Path root;
@@ -167,6 +173,18 @@ public final class ModelStore {
     }
   }
 
+  /**
+   * The SHA-256 of a version's manifest, which holds the SHA-256 of every file of it: one value
+   * that names exactly these model files (a comparison records it, to be refused if they change).
+   */
+  public String fingerprint(String version) throws IOException {
+    Path manifest = directory(version).resolve(MANIFEST);
+    if (!Files.isRegularFile(manifest)) {
+      throw new ModelLoadException("model file " + manifest + " is missing");
+    }
+    return AtomicFiles.sha256(manifest);
+  }
+
   public Path directory(String version) {
     return root.resolve(checkName(version));
   }
@@ -234,12 +252,16 @@ public final class ModelStore {
     }
   }
 
-  /** Every regular file under a version's directory but the manifest, as relative paths with '/'. */
+  /**
+   * Every regular file under a version's directory but the manifest and the comparisons made of it
+   * later ({@value #COMPARISONS}/), as relative paths with '/'.
+   */
   private static List<String> filesOf(Path dir) throws IOException {
     List<String> out = new ArrayList<>();
+    Path comparisons = dir.resolve(COMPARISONS);
     try (var paths = Files.walk(dir)) {
       for (Path p : paths.toList()) {
-        if (!Files.isDirectory(p)) {
+        if (!Files.isDirectory(p) && !p.startsWith(comparisons)) {
           String name = dir.relativize(p).toString().replace('\\', '/');
           if (!name.equals(MANIFEST)) {
             out.add(name);
