@@ -1,5 +1,6 @@
 package org.precedent.engine.decide;
 
+import java.util.function.Supplier;
 import org.precedent.engine.candidates.Bm25Candidates;
 import org.precedent.engine.candidates.CandidateStages;
 import org.precedent.engine.candidates.HybridCandidates;
@@ -30,6 +31,12 @@ public final class Assembly {
    * @param dense the dense leg, or null for BM25 only
    */
   public static CandidateStages candidates(Retriever retriever, Scorer reranker, DenseLeg dense) {
+    return candidates(retriever, () -> reranker, dense);
+  }
+
+  /** As {@link #candidates(Retriever, Scorer, DenseLeg)}, the reranker asked for when needed. */
+  static CandidateStages candidates(Retriever retriever, Supplier<Scorer> reranker,
+      DenseLeg dense) {
     if (dense == null) {
       return new CandidateStages(new Bm25Candidates(retriever), new RerankerScores(reranker));
     }
@@ -52,6 +59,12 @@ public final class Assembly {
    * @param rerankerUse when decisions run the reranker
    */
   public static Pipeline pipeline(Retriever retriever, Scorer reranker, DenseLeg dense,
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds, RerankerUse rerankerUse) {
+    return pipeline(retriever, () -> reranker, dense, fusion, safety, thresholds, rerankerUse);
+  }
+
+  /** As above, the reranker asked for only when a decision needs it. */
+  static Pipeline pipeline(Retriever retriever, Supplier<Scorer> reranker, DenseLeg dense,
       FusionModel fusion, SafetyPolicy safety, Thresholds thresholds, RerankerUse rerankerUse) {
     if (fusion.dense() != (dense != null)) {
       throw new IllegalArgumentException(fusion.dense()

@@ -32,14 +32,29 @@ public final class InForce implements Closeable {
   private final Knowledge knowledge;
   private final Retriever retriever;
   private final String version;
-  private final Scorer scorer;
+  private final DeferredScorer scorer;
   private final FusionModel fusion;
   private final DenseLeg dense;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
 
-  private InForce(Knowledge knowledge, Retriever retriever, String version, Scorer scorer,
-      FusionModel fusion, DenseLeg dense, SafetyPolicy safety, Thresholds thresholds) {
+  private final OpenTimes openTimes;
+
+  /**
+   * How long opening took, part by part, in milliseconds: where a one-question command's wait
+   * goes.
+   *
+   * @param knowledge the stored generation (groups, manifest)
+   * @param index     the Lucene index and the per-ticket tables held in memory
+   * @param model     the model version's files checked against its manifest, and fusion read
+   * @param dense     the dense leg: the sentence encoder's session and the answer classifier
+   */
+  public record OpenTimes(long knowledge, long index, long model, long dense) {}
+
+  private InForce(Knowledge knowledge, Retriever retriever, String version, DeferredScorer scorer,
+      FusionModel fusion, DenseLeg dense, SafetyPolicy safety, Thresholds thresholds,
+      OpenTimes openTimes) {
+    this.openTimes = openTimes;
     this.knowledge = knowledge;
     this.retriever = retriever;
     this.version = version;
@@ -61,22 +76,52 @@ public final class InForce implements Closeable {
    * measures a candidate on the same held-out tickets as the version in force.
    */
   public static InForce open(DataDir dir, String modelVersion) throws IOException {
+    return open(dir, modelVersion, false);
+  }
+
+  /**
+   * Opens what is in force but loads the reranker's network only when a decision first needs it
+   * (checking its files against the manifest again then): for a command that asks one question,
+   * which the faster legs often settle alone. A network that cannot be read then fails that
+   * decision, not the opening.
+   */
+  public static InForce openRerankerOnFirstUse(DataDir dir) throws IOException {
+    return open(dir, null, true);
+  }
+
+  private static InForce open(DataDir dir, String modelVersion, boolean deferReranker)
+      throws IOException {
+    long t0 = System.nanoTime();
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
+    long t1 = System.nanoTime();
     Retriever retriever = Retriever.open(knowledge);
+    long t2 = System.nanoTime();
     DenseLeg dense = null;
     try {
       ModelStore store = new ModelStore(dir.models());
       String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
           () -> new IOException("no trained model in " + dir.root()
               + " yet: run 'precedent train' first"));
-      RerankerModel model = store.load(version);
+      DeferredScorer scorer;
+      if (deferReranker) {
+        store.verify(version);
+        scorer = new DeferredScorer(() -> new Scorer(store.load(version)));
+      } else {
+        long l0 = System.nanoTime();
+        Scorer loaded = new Scorer(store.load(version));
+        scorer = new DeferredScorer(loaded, System.nanoTime() - l0);
+      }
       FusionModel fusion = FusionModel.load(store.directory(version));
+      long t3 = System.nanoTime();
       dense = openDenseLeg(knowledge, store.directory(version), fusion);
+      long t4 = System.nanoTime();
       Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
-      return new InForce(knowledge, retriever, version, new Scorer(model), fusion, dense, safety,
-          readThresholds(dir));
+      long reranker = deferReranker ? 0 : scorer.loadNanos();
+      return new InForce(knowledge, retriever, version, scorer, fusion, dense, safety,
+          readThresholds(dir), new OpenTimes(millis(t1 - t0), millis(t2 - t1),
+              millis(t3 - t2 - reranker), millis(t4 - t3)));
     } catch (IOException | RuntimeException e) {
       if (dense != null) {
         dense.close();
@@ -84,6 +129,24 @@ public final class InForce implements Closeable {
       retriever.close();
       throw e;
     }
+  }
+
+  private static long millis(long nanos) {
+    return Math.round(nanos / 1e6);
+  }
+
+  /** How long opening took, part by part (the reranker's load apart: {@link #rerankerLoad}). */
+  public OpenTimes openTimes() {
+    return openTimes;
+  }
+
+  /**
+   * How long loading the reranker's network took in milliseconds, or empty when it has not been
+   * loaded (opened with {@link #openRerankerOnFirstUse} and no decision needed it yet).
+   */
+  public java.util.OptionalLong rerankerLoad() {
+    return scorer.loaded() ? java.util.OptionalLong.of(millis(scorer.loadNanos()))
+        : java.util.OptionalLong.empty();
   }
 
   /**
@@ -133,8 +196,9 @@ public final class InForce implements Closeable {
     return version;
   }
 
+  /** The reranker, loaded now if it was deferred. */
   public Scorer scorer() {
-    return scorer;
+    return scorer.get();
   }
 
   public FusionModel fusion() {
