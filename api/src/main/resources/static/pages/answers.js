@@ -5,18 +5,21 @@
 
   let asked = null; // the question and ticket id the shown suggestions answer
 
-  async function sendFeedback(c, verdict, finalText, area) {
+  async function sendFeedback(c, verdict, finalText, area, propose) {
     const buttons = area.querySelectorAll('button');
     buttons.forEach(b => { b.disabled = true; });
     const status = area.querySelector('.status');
     setStatus(status, 'Saving…');
-    const body = { question: asked.question, answerGroup: c.answerGroup, verdict };
+    // The suggestion's text as shown: for an accepted answer, the text sent, which training learns.
+    const body = { question: asked.question, answerGroup: c.answerGroup, verdict, suggestedText: c.answer };
     if (asked.ticketId) body.ticketId = asked.ticketId;
     if (finalText !== undefined) body.finalText = finalText;
+    if (propose) body.propose = true;
     const r = await call('POST', '/api/v1/feedback', body);
     if (r.status === 201) {
       status.className = 'status confirmation';
-      status.textContent = 'Recorded: ' + r.json.verdict.toLowerCase() + ' (feedback #' + r.json.id + ')';
+      status.textContent = 'Recorded: ' + r.json.verdict.toLowerCase() + ' (feedback #' + r.json.id + ')'
+        + (r.json.proposed ? '; proposed to the library\'s managers as this answer\'s next version' : '');
     } else {
       setStatus(status, 'Not recorded: ' + problem(r), true);
       buttons.forEach(b => { b.disabled = false; });
@@ -29,11 +32,14 @@
     const area = el('div', { class: 'feedback' });
     const text = el('textarea', { 'aria-label': 'Answer as you will send it', class: 'final-text' });
     text.value = c.answer;
+    const propose = el('input', { type: 'checkbox', class: 'propose' });
     editor.append(el('label', {}, 'The answer as you will send it'), text,
+      el('label', { class: 'inline' }, propose,
+        ' Also propose it as this answer\'s next version in the library (a manager decides)'),
       el('div', { class: 'actions' }, el('button', { type: 'button', class: 'primary send-edit',
         onclick: () => {
           if (!text.value.trim()) return setStatus(status, 'The edited answer is empty.', true);
-          sendFeedback(c, 'EDITED', text.value, area);
+          sendFeedback(c, 'EDITED', text.value, area, propose.checked);
         } }, 'Send edited answer')));
     area.append(el('div', { class: 'actions' },
       el('button', { type: 'button', class: 'accept', onclick: () => sendFeedback(c, 'ACCEPTED', undefined, area) }, 'Accept'),

@@ -1,12 +1,16 @@
 package org.precedent.api.cli;
 
 import java.io.PrintWriter;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
+import org.precedent.api.suggest.FeedbackTraining;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.rerank.RerankerConfig;
+import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import picocli.CommandLine.Command;
@@ -19,7 +23,10 @@ import picocli.CommandLine.Spec;
     description = {"Trains the model on the stored tickets.",
         "The reranker learns from most tickets; fusion and calibration are fitted on tickets kept "
             + "apart; the result becomes the active model version. Checkpoints are written as it "
-            + "goes; --resume continues an interrupted run."})
+            + "goes; --resume continues an interrupted run.",
+        "Answers agents accepted or edited and sent are added to the reranker's tickets, read "
+            + "from the service's database in the data directory; while the service runs it "
+            + "holds that database, and training goes on without them."})
 final class TrainCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -71,7 +78,13 @@ final class TrainCommand implements Callable<Integer> {
         .withLearningRate(learningRate);
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
-    TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
+    FeedbackTraining.Read feedback = FeedbackTraining.read(dataDir, knowledge);
+    out.println(feedback.summary());
+    out.flush();
+    List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge));
+    pairs.addAll(feedback.pairs());
+    TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, pairs,
+        TeamModelTrainer.fusionQuestions(knowledge), resume);
     out.printf(Locale.ROOT, "model %s is active (%s)%n", report.version(),
         dataDir.models().resolve(report.version()));
     out.println(report.summary());
