@@ -6,3 +6,6 @@
 -- next version in the library. Plain SQL that H2 and PostgreSQL both run; IF NOT EXISTS as in V2.
 ALTER TABLE suggestion_feedback ADD COLUMN IF NOT EXISTS suggested_text VARCHAR(100000);
 ALTER TABLE suggestion_feedback ADD COLUMN IF NOT EXISTS proposed BOOLEAN DEFAULT FALSE NOT NULL;
+-- An incoming ticket's own fields (JSON, values redacted as the question is), from which an
+-- answer's slots are filled where DIR/slot-fields.properties names a field for each.
+ALTER TABLE queue_ticket ADD COLUMN IF NOT EXISTS fields VARCHAR(100000);

@@ -88,6 +88,18 @@ class QueueController {
    */
   @PostMapping(path = "/api/v1/queue/tickets", consumes = MediaType.APPLICATION_JSON_VALUE)
   ResponseEntity<TicketView> submit(@Valid @RequestBody SubmitRequest request, Principal who) {
+    if (request.fields() != null) {
+      request.fields().forEach((name, value) -> {
+        if (!name.matches("[A-Za-z0-9_.-]{1,100}")) {
+          throw new FieldProblem("fields", "field name '" + name + "' may hold only letters, "
+              + "digits and _ . - (1 to 100)");
+        }
+        if (value == null || value.length() > SubmitRequest.FIELD_CHARS) {
+          throw new FieldProblem("fields." + name, "must be text of at most "
+              + SubmitRequest.FIELD_CHARS + " characters");
+        }
+      });
+    }
     TicketQueue.Submitted s = queue.submit(request, who.getName());
     if (s.created()) {
       worker.wake();
