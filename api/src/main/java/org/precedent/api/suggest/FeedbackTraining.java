@@ -14,6 +14,7 @@ import org.precedent.api.system.CommandLineDatabase;
 import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.group.AnswerGroup;
+import org.precedent.knowledge.group.Slots;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 
@@ -31,6 +32,8 @@ public final class FeedbackTraining {
   public static final String NO_TEXT = "accepted before its text was kept, and its answer group "
       + "is gone";
   public static final String EMPTY = "empty question or text";
+  public static final String SLOTS = "accepted with slots a person filled in (the text sent is not "
+      + "known)";
   public static final String DUPLICATE = "the same question and text as earlier feedback";
 
   /**
@@ -132,6 +135,11 @@ public final class FeedbackTraining {
             skipped.merge(NO_TEXT, 1, Integer::sum);
             continue;
           }
+        }
+        if (Slots.hasSlots(text)) {
+          // The agent filled this customer's details in: what went out is not what was shown.
+          skipped.merge(SLOTS, 1, Integer::sum);
+          continue;
         }
         // Cleaned as an ingested reply is (greeting, sign-off, signature, quoted mail removed).
         String reply = text == null ? "" : cleaner.cleanReply(text);

@@ -84,6 +84,8 @@ class TrainFeedbackTest {
           "verdict", "REJECTED", "suggestedText", shown));
       feedback(http, Map.of("ticketId", storedTicket, "question", "bin not emptied again",
           "answerGroup", group, "verdict", "ACCEPTED", "suggestedText", shown));
+      feedback(http, Map.of("question", "which day is my bin day", "answerGroup", group,
+          "verdict", "ACCEPTED", "suggestedText", "Your day is \u27e6slot:day\u27e7."));
       // The running service holds its database: train says so and goes on training without
       // the feedback (stopped once its first epoch runs: the full run is the one below).
       try (ChildJvm child = startTraining(tmp.resolve("while-serving.log"))) {
@@ -97,7 +99,7 @@ class TrainFeedbackTest {
     FeedbackTraining.Read read = FeedbackTraining.read(new DataDir(data), knowledge);
     assertEquals(null, read.unavailable());
     assertEquals(Map.of(FeedbackTraining.REJECTED, 1, FeedbackTraining.DUPLICATE, 1,
-        FeedbackTraining.STORED, 1), read.skipped());
+        FeedbackTraining.STORED, 1, FeedbackTraining.SLOTS, 1), read.skipped());
     List<TrainingPair> added = read.pairs();
     assertEquals(2, added.size(), added.toString());
     assertEquals("my green bin was not emptied this week", added.get(0).question());
@@ -110,8 +112,9 @@ class TrainFeedbackTest {
       assertEquals(0, child.waitFor(), child.tail());
     }
     String out = Files.readString(log);
-    assertTrue(out.contains("agents' feedback: 2 added, 3 skipped (1 " + FeedbackTraining.STORED
-        + "; 1 " + FeedbackTraining.REJECTED + "; 1 " + FeedbackTraining.DUPLICATE + ")"), out);
+    assertTrue(out.contains("agents' feedback: 2 added, 4 skipped (1 " + FeedbackTraining.SLOTS
+        + "; 1 " + FeedbackTraining.STORED + "; 1 " + FeedbackTraining.REJECTED + "; 1 "
+        + FeedbackTraining.DUPLICATE + ")"), out);
     assertEquals(TeamModelTrainer.rerankerPairs(knowledge).size() + 2, pairs(out), out);
   }
 }
