@@ -20,7 +20,8 @@ class ServiceSchemaTest {
       {"threshold_change", "reason"}, {"threshold_change", "old_value"},
       {"threshold_change", "new_value"}, {"model_activation", "reason"},
       {"model_activation", "comparison"},
-      {"suggestion_feedback", "final_text"}, {"queue_ticket", "question"}};
+      {"suggestion_feedback", "final_text"}, {"suggestion_feedback", "suggested_text"},
+      {"queue_ticket", "question"}};
 
   private static DataSource h2() {
     return new DriverManagerDataSource("jdbc:h2:mem:schema" + System.nanoTime()
@@ -55,8 +56,8 @@ class ServiceSchemaTest {
       ServiceSchema.migrate(db);
       ServiceSchema.migrate(db);
       JdbcTemplate t = new JdbcTemplate(db);
-      // Each script applied once: V1 to V4 (an empty database is not baselined).
-      assertEquals(List.of("1", "2", "3", "4"), t.queryForList("SELECT \"version\" FROM \"flyway_schema_history\""
+      // Each script applied once: V1 to V5 (an empty database is not baselined).
+      assertEquals(List.of("1", "2", "3", "4", "5"), t.queryForList("SELECT \"version\" FROM \"flyway_schema_history\""
           + " WHERE \"type\" = 'SQL' ORDER BY \"installed_rank\"", String.class));
     }
   }

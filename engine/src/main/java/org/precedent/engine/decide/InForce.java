@@ -37,9 +37,11 @@ public final class InForce implements Closeable {
   private final DenseLeg dense;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
+  private final SlotFields slotFields;
 
   private InForce(Knowledge knowledge, Retriever retriever, String version, Scorer scorer,
-      FusionModel fusion, DenseLeg dense, SafetyPolicy safety, Thresholds thresholds) {
+      FusionModel fusion, DenseLeg dense, SafetyPolicy safety, Thresholds thresholds,
+      SlotFields slotFields) {
     this.knowledge = knowledge;
     this.retriever = retriever;
     this.version = version;
@@ -48,6 +50,7 @@ public final class InForce implements Closeable {
     this.dense = dense;
     this.safety = safety;
     this.thresholds = thresholds;
+    this.slotFields = slotFields;
   }
 
   /** Opens what is in force; a clear IOException says what is missing. */
@@ -76,7 +79,7 @@ public final class InForce implements Closeable {
       Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
       return new InForce(knowledge, retriever, version, new Scorer(model), fusion, dense, safety,
-          readThresholds(dir));
+          readThresholds(dir), SlotFields.read(dir.slotFields()));
     } catch (IOException | RuntimeException e) {
       if (dense != null) {
         dense.close();
@@ -112,7 +115,8 @@ public final class InForce implements Closeable {
 
   /** The pipeline that decides with what is in force. */
   public Pipeline pipeline() {
-    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds);
+    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds)
+        .withSlotFields(slotFields);
   }
 
   public Knowledge knowledge() {
