@@ -1,65 +1,25 @@
 'use strict';
 // The agents' page: ask, read the decision and the ranked answers, and say what was done with them.
 (() => {
-  const { el, call, problem, setStatus, confidencePercent, thresholdPercent } = Precedent;
-
-  const REASONS = {
-    no_candidate: 'No past answer is close enough to propose.',
-    safety_rule: 'The question touches a safety rule, so a person must answer.',
-    human_only: 'This kind of question is answered by people only.',
-    answer_incomplete: 'The best answer lacks a detail that was removed from past replies; '
-      + 'a person fills it in.',
-    needs_customer_details: 'Past customers got this answer with their own details (a day, an '
-      + 'amount, a reference); a person fills in this customer\'s.',
-    below_threshold: 'Precedent is not sure enough to reply on its own.',
-  };
+  const { el, call, problem, setStatus, confidencePercent } = Precedent;
 
   let asked = null; // the question and ticket id the shown suggestions answer
 
-  function decision(d) {
-    const reply = d.outcome === 'REPLY';
-    const box = el('section', { class: 'card decision ' + (reply ? 'reply' : 'hand-off'),
-      id: 'decision', 'aria-labelledby': 'outcome' },
-      el('p', { class: 'outcome', id: 'outcome' },
-        reply ? 'REPLY: Precedent would answer this on its own' : 'HAND OFF: a person answers this'),
-      // The one chance shown: the calibrated confidence that the best answer is right.
-      el('p', { class: 'figures', id: 'confidence' }, 'Confidence '
-        + confidencePercent(d.confidence, d.threshold) + ' that the best answer is right; '
-        + thresholdPercent(d.threshold) + ' needed to reply on its own'
-        + (d.modelVersion ? ' · model ' + d.modelVersion : '')));
-    if (d.caution) {
-      box.append(el('div', { class: 'caution', role: 'alert', id: 'caution' },
-        el('h3', {}, 'Caution' + (d.safetyTopic ? ' (' + d.safetyTopic + ')' : '')
-          + ': tell the customer this first'),
-        el('p', {}, d.caution)));
-    }
-    if (reply) {
-      box.append(el('h3', {}, 'The reply'), el('p', { class: 'answer' }, d.reply));
-    } else {
-      box.append(el('p', { id: 'reason' }, REASONS[d.reason] || ('Reason: ' + d.reason)));
-    }
-    if (d.template) {
-      // Text only (el sets textContent): the marked slots are shown as typed, never as HTML.
-      box.append(el('h3', {}, 'The answer, with the places to fill in marked'),
-        el('p', { class: 'answer template', id: 'template' }, d.template));
-    }
-    if (d.explanation) box.append(el('p', { class: 'figures' }, d.explanation));
-    if (d.truncated) box.append(el('p', { class: 'figures' }, 'The question was long: only its start was read.'));
-    return box;
-  }
-
-  async function sendFeedback(c, verdict, finalText, area) {
+  async function sendFeedback(c, verdict, finalText, area, propose) {
     const buttons = area.querySelectorAll('button');
     buttons.forEach(b => { b.disabled = true; });
     const status = area.querySelector('.status');
     setStatus(status, 'Saving…');
-    const body = { question: asked.question, answerGroup: c.answerGroup, verdict };
+    // The suggestion's text as shown: for an accepted answer, the text sent, which training learns.
+    const body = { question: asked.question, answerGroup: c.answerGroup, verdict, suggestedText: c.answer };
     if (asked.ticketId) body.ticketId = asked.ticketId;
     if (finalText !== undefined) body.finalText = finalText;
+    if (propose) body.propose = true;
     const r = await call('POST', '/api/v1/feedback', body);
     if (r.status === 201) {
       status.className = 'status confirmation';
-      status.textContent = 'Recorded: ' + r.json.verdict.toLowerCase() + ' (feedback #' + r.json.id + ')';
+      status.textContent = 'Recorded: ' + r.json.verdict.toLowerCase() + ' (feedback #' + r.json.id + ')'
+        + (r.json.proposed ? '; proposed to the library\'s managers as this answer\'s next version' : '');
     } else {
       setStatus(status, 'Not recorded: ' + problem(r), true);
       buttons.forEach(b => { b.disabled = false; });
@@ -72,11 +32,14 @@
     const area = el('div', { class: 'feedback' });
     const text = el('textarea', { 'aria-label': 'Answer as you will send it', class: 'final-text' });
     text.value = c.answer;
+    const propose = el('input', { type: 'checkbox', class: 'propose' });
     editor.append(el('label', {}, 'The answer as you will send it'), text,
+      el('label', { class: 'inline' }, propose,
+        ' Also propose it as this answer\'s next version in the library (a manager decides)'),
       el('div', { class: 'actions' }, el('button', { type: 'button', class: 'primary send-edit',
         onclick: () => {
           if (!text.value.trim()) return setStatus(status, 'The edited answer is empty.', true);
-          sendFeedback(c, 'EDITED', text.value, area);
+          sendFeedback(c, 'EDITED', text.value, area, propose.checked);
         } }, 'Send edited answer')));
     area.append(el('div', { class: 'actions' },
       el('button', { type: 'button', class: 'accept', onclick: () => sendFeedback(c, 'ACCEPTED', undefined, area) }, 'Accept'),
@@ -104,7 +67,7 @@
 
   function show(d) {
     const result = document.getElementById('result');
-    result.replaceChildren(decision(d));
+    result.replaceChildren(DecisionCard.card(d));
     const list = d.candidates || [];
     result.append(el('h2', {}, list.length ? 'Past answers, best first' : 'No past answer fits this question'));
     result.append(el('p', { class: 'figures' }, 'The question as Precedent read it (cleaned and redacted): ',

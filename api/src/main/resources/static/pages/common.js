@@ -1,8 +1,24 @@
 'use strict';
-// What both pages share: signing in, calling the API, and building DOM nodes.
+// What the pages share: signing in (the form itself, built into each page's #sign-in-card),
+// calling the API, and building DOM nodes.
 // Data from the service is only ever placed with textContent / text nodes, never parsed as markup.
 const Precedent = (() => {
   const STORE = 'precedent.credentials';
+
+  /** Why a decision went to a person, in a sentence, by the service's reason name. */
+  const REASONS = {
+    no_candidate: 'No past answer is close enough to propose.',
+    safety_rule: 'The question touches a safety rule, so a person must answer.',
+    human_only: 'This kind of question is answered by people only.',
+    answer_incomplete: 'The best answer lacks a detail that was removed from past replies; '
+      + 'a person fills it in.',
+    needs_customer_details: 'Past customers got this answer with their own details (a day, an '
+      + 'amount, a reference); a person fills in this customer\'s.',
+    below_threshold: 'Precedent is not sure enough to reply on its own.',
+    answer_not_approved: 'The best answer is not approved in the answer library yet, and the queue '
+      + 'replies on its own only with approved answers.',
+    answer_retired: 'The best answer is retired from the answer library.',
+  };
 
   /** Builds an element; children that are not nodes become text nodes. */
   function el(tag, props, ...children) {
@@ -96,7 +112,35 @@ const Precedent = (() => {
     if (showSignedIn(true)) onReady();
   }
 
+  /** The sign-in form, one definition for every page: built into the page's empty #sign-in-card. */
+  function buildSignIn() {
+    const card = document.getElementById('sign-in-card');
+    if (!card || card.firstChild) return;
+    const radio = (id, value, checked, label) => [
+      el('input', { type: 'radio', id, name: 'method', value, checked }),
+      el('label', { for: id }, label)];
+    card.append(
+      el('h2', { id: 'sign-in-title' }, 'Sign in'),
+      el('form', { id: 'sign-in-form', autocomplete: 'off' },
+        el('fieldset', {}, el('legend', {}, 'Sign in with'),
+          radio('method-key', 'key', true, 'an API key'),
+          radio('method-password', 'password', false, 'a user name and password')),
+        el('div', { id: 'by-key' },
+          el('label', { for: 'api-key' }, 'API key'),
+          el('input', { type: 'password', id: 'api-key', name: 'api-key' })),
+        el('div', { id: 'by-password', class: 'row' },
+          el('div', {}, el('label', { for: 'user' }, 'User name'),
+            el('input', { type: 'text', id: 'user', name: 'user' })),
+          el('div', {}, el('label', { for: 'password' }, 'Password'),
+            el('input', { type: 'password', id: 'password', name: 'password' }))),
+        el('div', { class: 'actions' },
+          el('button', { type: 'submit', class: 'primary', id: 'sign-in' }, 'Sign in')),
+        el('p', { class: 'hint' }, 'Kept in this browser tab only, until you sign out or close it.')),
+      el('p', { id: 'sign-in-status', class: 'status', role: 'status' }));
+  }
+
   function wireSignIn() {
+    buildSignIn();
     const form = document.getElementById('sign-in-form');
     const useKey = () => form.elements['method'].value === 'key';
     const toggle = () => {
@@ -273,5 +317,5 @@ const Precedent = (() => {
   }
 
   return { el, call, problem, setStatus, num, percent, threshold, confidence, thresholdPercent,
-    confidencePercent, start, needSignIn };
+    confidencePercent, start, needSignIn, REASONS };
 })();

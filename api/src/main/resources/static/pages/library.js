@@ -57,9 +57,18 @@
       ? 'Slots for the customer\'s details: ' + a.slots.join(', ') + ' (never sent automatically).' : '';
     $('detail-sources').textContent = a.sources.length + ' past replies: ' + a.sources.join(', ')
       + (a.present ? '' : ' (the group is no longer in the knowledge in force)');
-    $('detail-edits').replaceChildren(...got.recentEdits.map(e => el('li', {},
-      el('span', { class: 'figures' }, e.recordedAt.replace('T', ' ').slice(0, 16) + ' ' + e.agent + ': '),
-      el('span', { class: 'answer' }, e.text))));
+    // An edit the agent proposed as the next version: a manager takes its text into the form,
+    // and saving it (with a reason) makes the new version, audited like any edit.
+    $('detail-edits').replaceChildren(...got.recentEdits.map(e => el('li', { class: e.proposed ? 'proposed' : null },
+      el('span', { class: 'figures' }, e.recordedAt.replace('T', ' ').slice(0, 16) + ' ' + e.agent
+        + (e.proposed ? ' proposed it as the next version' : '') + ': '),
+      el('span', { class: 'answer' }, e.text),
+      e.proposed && role === 'manager' ? el('button', { type: 'button', class: 'use-proposal',
+        onclick: () => {
+          $('edit-text').value = e.text;
+          $('change-reason').value = 'proposed by ' + e.agent + ' on ' + e.recordedAt.slice(0, 10);
+          $('edit-text').focus();
+        } }, 'Use this text') : null)));
     $('detail-no-edits').hidden = got.recentEdits.length > 0;
     const form = $('change-form');
     form.hidden = role !== 'manager';

@@ -4,10 +4,14 @@ import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
+import java.util.function.Function;
 import org.precedent.api.decision.DecisionView;
 import org.precedent.api.system.InForceHolder;
+import org.precedent.api.system.PipelineLease;
 import org.precedent.engine.decide.HandOffReason;
+import org.precedent.engine.decide.SlotFields;
 import org.precedent.engine.explain.Explanation;
 import org.precedent.knowledge.clean.Placeholders;
 import org.precedent.knowledge.group.Slots;
@@ -41,6 +45,14 @@ public class AnswerGate {
 
   /** The decision the queue stores: {@code d} itself, or a hand-off the library calls for. */
   public DecisionView apply(DecisionView d) {
+    return apply(d, Map.of());
+  }
+
+  /**
+   * The same, for a ticket with its own fields: an approved text's slots are filled from them as
+   * the pipeline fills a group's ({@code engine.decide.SlotFields}).
+   */
+  public DecisionView apply(DecisionView d, Map<String, String> fields) {
     if (!"REPLY".equals(d.outcome()) || d.answerGroup() == null) {
       return d;
     }
@@ -51,10 +63,16 @@ public class AnswerGate {
       LOG.warn("answer library not synced with the knowledge in force: {}", e.getMessage());
     }
     Optional<StoredAnswer> found = library.find(d.answerGroup());
-    Verdict v = verdict(found.orElse(null), approvalRequired);
+    SlotFields slots;
+    try (PipelineLease lease = models.lease()) {
+      slots = lease.pipeline().slotFields();
+    }
+    Verdict v = verdict(found.orElse(null), approvalRequired, text -> slots.fill(text, fields));
     if (v.reason() == null) {
       library.recordUse(d.answerGroup());
-      return v.text().equals(d.reply()) ? d : withReply(d, v.text());
+      // No text of the library's own (approval not required, and not approved): the
+      // pipeline's reply goes out as it made it.
+      return v.text() == null || v.text().equals(d.reply()) ? d : withReply(d, v.text());
     }
     return handOff(d, v.reason(), v.detail());
   }
@@ -67,6 +85,12 @@ public class AnswerGate {
   record Verdict(HandOffReason reason, String detail, String text) {}
 
   static Verdict verdict(StoredAnswer a, boolean approvalRequired) {
+    return verdict(a, approvalRequired, text -> Optional.empty());
+  }
+
+  /** @param fill the text with its slots filled from the ticket's fields, if they all can be */
+  static Verdict verdict(StoredAnswer a, boolean approvalRequired,
+      Function<String, Optional<String>> fill) {
     if (a != null && a.state().equals(StoredAnswer.State.RETIRED.name())) {
       return new Verdict(HandOffReason.ANSWER_RETIRED, "the answer " + a.groupId()
           + " is retired from the library: a person answers", null);
@@ -88,6 +112,10 @@ public class AnswerGate {
     }
     List<String> slots = Slots.names(a.text());
     if (!slots.isEmpty()) {
+      Optional<String> filled = fill.apply(a.text());
+      if (filled.isPresent()) {
+        return new Verdict(null, null, filled.get());
+      }
       return new Verdict(HandOffReason.NEEDS_CUSTOMER_DETAILS, "the approved text has slots "
           + String.join(", ", slots) + " for this customer's details", null);
     }

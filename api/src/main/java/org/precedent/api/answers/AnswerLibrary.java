@@ -255,12 +255,14 @@ public class AnswerLibrary {
 
   /** The texts agents last sent after editing this answer's suggestion, latest first. */
   public List<Map<String, Object>> recentEdits(String groupId, int limit) {
-    return db.query("SELECT agent, recorded_at, final_text FROM suggestion_feedback "
+    return db.query("SELECT agent, recorded_at, final_text, proposed FROM suggestion_feedback "
         + "WHERE answer_group = ? AND verdict = 'EDITED' ORDER BY id DESC", (rs, n) -> {
           Map<String, Object> m = new java.util.LinkedHashMap<>();
           m.put("agent", rs.getString(1));
           m.put("recordedAt", rs.getTimestamp(2).toInstant().toString());
           m.put("text", rs.getString(3));
+          // The agent offered it as the answer's next version (a manager adopts it by editing).
+          m.put("proposed", rs.getBoolean(4));
           return m;
         }, groupId).stream().limit(limit).toList();
   }

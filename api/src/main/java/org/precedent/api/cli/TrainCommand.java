@@ -2,14 +2,18 @@ package org.precedent.api.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import org.precedent.api.models.ModelAudit;
-import org.precedent.engine.rerank.store.ModelStore;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import java.util.Optional;
 import java.util.concurrent.Callable;
+import org.precedent.api.models.ModelAudit;
+import org.precedent.engine.rerank.store.ModelStore;
+import org.precedent.api.suggest.FeedbackTraining;
 import org.precedent.engine.learn.TeamModelTrainer;
 import org.precedent.engine.learn.TrainingReport;
 import org.precedent.engine.rerank.RerankerConfig;
+import org.precedent.engine.rerank.TrainingPair;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
 import picocli.CommandLine.Command;
@@ -24,7 +28,10 @@ import picocli.CommandLine.Spec;
             + "apart. The first version goes in force at once; a later one is a candidate until "
             + "evaluate compares it with the version in force and activate puts it in force "
             + "(or --activate here). Checkpoints are written as it goes; --resume continues an "
-            + "interrupted run."})
+            + "interrupted run.",
+        "Answers agents accepted or edited and sent are added to the reranker's tickets, read "
+            + "from the service's database in the data directory; while the service runs it "
+            + "holds that database, and training goes on without them."})
 final class TrainCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -85,7 +92,13 @@ final class TrainCommand implements Callable<Integer> {
         .withLearningRate(learningRate);
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
-    TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, resume);
+    FeedbackTraining.Read feedback = FeedbackTraining.read(dataDir, knowledge);
+    out.println(feedback.summary());
+    out.flush();
+    List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge));
+    pairs.addAll(feedback.pairs());
+    TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, pairs,
+        TeamModelTrainer.fusionQuestions(knowledge), resume);
     Path dir = dataDir.models().resolve(report.version());
     out.println(report.summary());
     if (report.activated()) {

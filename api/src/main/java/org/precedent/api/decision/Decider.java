@@ -38,13 +38,24 @@ public class Decider {
    * it again could strip more than the stored text shows, a second greeting say.
    */
   public DecisionView decideCleaned(String question, String category, int limit, String source) {
-    return decide(question, category, limit, source, true);
+    return decideCleaned(question, category, java.util.Map.of(), limit, source);
+  }
+
+  /** The same, with the ticket's own fields, from which an answer's slots may be filled. */
+  public DecisionView decideCleaned(String question, String category,
+      java.util.Map<String, String> fields, int limit, String source) {
+    return decide(question, category, fields, limit, source, true);
   }
 
   private DecisionView decide(String question, String category, int limit, String source,
       boolean cleaned) {
+    return decide(question, category, java.util.Map.of(), limit, source, cleaned);
+  }
+
+  private DecisionView decide(String question, String category,
+      java.util.Map<String, String> fields, int limit, String source, boolean cleaned) {
     try (PipelineLease lease = models.lease()) {
-      Decision d = cleaned ? lease.pipeline().decideCleaned(question, category)
+      Decision d = cleaned ? lease.pipeline().decideCleaned(question, category, fields)
           : lease.pipeline().decide(question, category);
       meters.counter("precedent.decisions", "source", source, "outcome", d.outcome().name())
           .increment();

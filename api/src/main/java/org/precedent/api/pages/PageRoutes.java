@@ -17,5 +17,6 @@ class PageRoutes implements WebMvcConfigurer {
     registry.addViewController("/answers").setViewName("forward:/pages/answers.html");
     registry.addViewController("/manage").setViewName("forward:/pages/manage.html");
     registry.addViewController("/library").setViewName("forward:/pages/library.html");
+    registry.addViewController("/queue").setViewName("forward:/pages/queue.html");
   }
 }

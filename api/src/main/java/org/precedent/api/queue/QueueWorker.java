@@ -155,7 +155,8 @@ class QueueWorker implements SmartLifecycle {
     DecisionView d;
     try {
       // The library has the last word on what the queue sends (approved answers only).
-      d = answers.apply(decider.decideCleaned(c.question(), c.category(), 3, "queue"));
+      d = answers.apply(decider.decideCleaned(c.question(), c.category(), c.fields(), 3,
+          "queue"), c.fields());
     } catch (RuntimeException | Error e) {
       String reason = describe(e);
       LOG.warn("ticket {}: decision failed (try {} of {}): {}", c.ticketId(), c.attempt(),

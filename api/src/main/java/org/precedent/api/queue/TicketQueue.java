@@ -7,7 +7,9 @@ import java.time.Duration;
 import java.time.Instant;
 import java.time.OffsetDateTime;
 import java.util.List;
+import java.util.Map;
 import java.util.Optional;
+import java.util.TreeMap;
 import org.precedent.api.decision.DecisionView;
 import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.ticket.Category;
@@ -72,13 +74,18 @@ class TicketQueue {
   }
 
   Submitted submit(SubmitRequest r, String submitter) {
-    // Only the redacted text is ever stored or logged.
+    // Only the redacted text is ever stored or logged, the fields' values as the question.
     String question = cleaner.cleanQuestion(r.question());
     String category = Category.normalise(r.category());
+    Map<String, String> fields = new TreeMap<>();
+    if (r.fields() != null) {
+      r.fields().forEach((k, v) -> fields.put(k, cleaner.redact(v)));
+    }
     try {
       db.update("INSERT INTO queue_ticket (ticket_id, question, category, status, submitted_by, "
-          + "submitted_at) VALUES (?, ?, ?, ?, ?, ?)", r.ticketId(), question, category,
-          TicketState.QUEUED.name(), submitter, Timestamp.from(Instant.now()));
+          + "submitted_at, fields) VALUES (?, ?, ?, ?, ?, ?, ?)", r.ticketId(), question,
+          category, TicketState.QUEUED.name(), submitter, Timestamp.from(Instant.now()),
+          fields.isEmpty() ? null : writeFields(fields));
       return new Submitted(find(r.ticketId()).orElseThrow(), true);
     } catch (DuplicateKeyException again) {
       TicketView first = find(r.ticketId()).orElseThrow();
@@ -144,11 +151,12 @@ class TicketQueue {
           "the replica deciding it stopped before its lease ended, " + MAX_ATTEMPTS + " times",
           TicketState.DECIDING.name(), Timestamp.from(now), MAX_ATTEMPTS);
       long deadline = System.nanoTime() + lease.toNanos();
-      List<Claimed> rows = db.query("SELECT seq, ticket_id, question, category, attempts "
-          + "FROM queue_ticket WHERE (status = ? OR (status = ? AND lease_until < ?)) "
+      List<Claimed> rows = db.query("SELECT seq, ticket_id, question, category, attempts, "
+          + "fields FROM queue_ticket WHERE (status = ? OR (status = ? AND lease_until < ?)) "
           + "AND attempts < ? ORDER BY seq LIMIT ? FOR UPDATE SKIP LOCKED",
           (rs, i) -> new Claimed(rs.getLong(1), rs.getString(2), rs.getString(3),
-              rs.getString(4), rs.getInt(5) + 1, deadline), TicketState.QUEUED.name(),
+              rs.getString(4), rs.getInt(5) + 1, deadline, fields(rs.getString(6))),
+          TicketState.QUEUED.name(),
           TicketState.DECIDING.name(), Timestamp.from(now), MAX_ATTEMPTS, n);
       Timestamp until = Timestamp.from(now.plus(lease));
       for (Claimed c : rows) {
@@ -171,7 +179,11 @@ class TicketQueue {
    * lease ends by this process's {@link System#nanoTime} clock, measured from before the claim.
    */
   record Claimed(long seq, String ticketId, String question, String category, int attempt,
-      long deadlineNanos) {
+      long deadlineNanos, Map<String, String> fields) {
+
+    Claimed {
+      fields = Map.copyOf(fields);
+    }
 
     /** Whether the lease still has {@code margin} to run. */
     boolean leaseLeft(Duration margin) {
@@ -263,6 +275,26 @@ class TicketQueue {
     Long n = db.queryForObject("SELECT COUNT(*) FROM queue_ticket WHERE status = ?", Long.class,
         state.name());
     return n == null ? 0 : n;
+  }
+
+  private String writeFields(Map<String, String> fields) {
+    try {
+      return json.writeValueAsString(fields);
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("cannot write a ticket's fields: " + e.getMessage(), e);
+    }
+  }
+
+  private Map<String, String> fields(String stored) {
+    if (stored == null) {
+      return Map.of();
+    }
+    try {
+      return json.readValue(stored, new com.fasterxml.jackson.core.type.TypeReference<
+          Map<String, String>>() { });
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("stored fields unreadable: " + e.getOriginalMessage(), e);
+    }
   }
 
   private String write(DecisionView d) {

@@ -39,13 +39,17 @@ class FeedbackController {
     if (!edited && f.finalText() != null && !f.finalText().isBlank()) {
       throw new FieldProblem("finalText", "only an EDITED verdict carries a final text");
     }
+    boolean propose = Boolean.TRUE.equals(f.propose());
+    if (propose && !edited) {
+      throw new FieldProblem("propose", "only an EDITED verdict proposes a new version");
+    }
     Instant now = Instant.now();
     var keys = new GeneratedKeyHolder();
     // Both texts are redacted before they are kept: feedback is stored for as long as audits are.
     db.update(c -> {
       var s = c.prepareStatement("INSERT INTO suggestion_feedback (agent, recorded_at, ticket_id, "
-          + "question, answer_group, verdict, final_text, model_version) "
-          + "VALUES (?, ?, ?, ?, ?, ?, ?, ?)", new String[] {"id"});
+          + "question, answer_group, verdict, final_text, model_version, suggested_text, "
+          + "proposed) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)", new String[] {"id"});
       s.setString(1, agent.getName());
       s.setTimestamp(2, Timestamp.from(now));
       s.setString(3, f.ticketId());
@@ -54,9 +58,12 @@ class FeedbackController {
       s.setString(6, f.verdict().name());
       s.setString(7, edited ? cleaner.redact(f.finalText()) : null);
       s.setString(8, models.version());
+      s.setString(9, f.suggestedText() == null || f.suggestedText().isBlank() ? null
+          : cleaner.redact(f.suggestedText()));
+      s.setBoolean(10, propose);
       return s;
     }, keys);
     return Map.of("id", keys.getKey().longValue(), "recordedAt", now.toString(),
-        "verdict", f.verdict().name());
+        "verdict", f.verdict().name(), "proposed", propose);
   }
 }

@@ -31,7 +31,7 @@ class ApiDescription {
 
                 Sign in with an API key in the `X-Precedent-Key` header or with HTTP basic \
                 credentials. Roles: **agent** (suggestions, decisions, feedback, reading the \
-                answer library), **queue** (submit tickets, read their decisions), **manager** \
+                answer library and the queue's tickets), **queue** (submit tickets, read their decisions), **manager** \
                 (threshold, model versions, the answer library's edits, approvals and \
                 retirements, metrics). Errors are RFC 9457 problem details; too many failed sign-ins are \
                 answered 429 with Retry-After."""))

@@ -43,7 +43,7 @@ class SecurityConfig {
   static boolean isPage(HttpServletRequest request) {
     String path = request.getRequestURI();
     return path.equals("/") || path.equals("/answers") || path.equals("/manage")
-        || path.equals("/library") || path.startsWith("/pages/");
+        || path.equals("/library") || path.equals("/queue") || path.startsWith("/pages/");
   }
 
   static boolean isDocs(HttpServletRequest request) {
@@ -83,12 +83,14 @@ class SecurityConfig {
             .requestMatchers(GET, "/api/v1/openapi", "/api/v1/openapi/**", DOCS, DOCS + "/**",
                 DOCS_FILES + "**").permitAll()
             // The pages hold no data; they call the API below with the caller's own credentials.
-            .requestMatchers(GET, "/", "/answers", "/manage", "/library", "/pages/**", "/error")
+            .requestMatchers(GET, "/", "/answers", "/manage", "/library", "/queue",
+                "/pages/**", "/error")
                 .permitAll()
             .requestMatchers(GET, "/api/v1/me").authenticated()
             .requestMatchers(POST, "/api/v1/suggestions").hasAnyRole("AGENT", "MANAGER")
             .requestMatchers(POST, "/api/v1/decisions").hasAnyRole("AGENT", "MANAGER", "QUEUE")
             .requestMatchers(POST, "/api/v1/queue/tickets").hasRole("QUEUE")
+            .requestMatchers(GET, "/api/v1/queue/tickets").hasAnyRole("AGENT", "MANAGER")
             .requestMatchers(GET, "/api/v1/queue/tickets/*")
                 .hasAnyRole("QUEUE", "AGENT", "MANAGER")
             .requestMatchers(POST, "/api/v1/feedback").hasRole("AGENT")

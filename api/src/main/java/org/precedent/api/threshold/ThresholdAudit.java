@@ -2,15 +2,14 @@ package org.precedent.api.threshold;
 
 import java.io.IOException;
 import java.sql.Connection;
-import java.sql.DriverManager;
 import java.sql.PreparedStatement;
 import java.sql.SQLException;
 import java.sql.Timestamp;
 import java.time.Instant;
 import java.util.TreeMap;
 import org.precedent.api.system.AuditColumns;
+import org.precedent.api.system.CommandLineDatabase;
 import org.precedent.api.system.ReplicaSync;
-import org.precedent.api.system.ServiceSchema;
 import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.measure.ThresholdDecimals;
@@ -27,8 +26,6 @@ import org.springframework.jdbc.datasource.SingleConnectionDataSource;
  * is ever made behind the audit's back.
  */
 public final class ThresholdAudit {
-  /** H2's DATABASE_ALREADY_OPEN_1 (org.h2.api.ErrorCode): another process holds the file. */
-  private static final int DATABASE_ALREADY_OPEN = 90020;
   private static final String INSERT = "INSERT INTO threshold_change (changed_by, changed_at, "
       + "old_value, new_value, reason) VALUES (?, ?, ?, ?, ?)";
 
@@ -48,10 +45,7 @@ public final class ThresholdAudit {
       String reason) throws IOException {
     Thresholds old = InForce.readThresholds(dir);
     // The database holds the audit: private to its owner from the start, as the service keeps it.
-    AtomicFiles.createPrivateDirectories(dir.serviceDatabase().getParent());
-    String url = "jdbc:h2:file:" + dir.serviceDatabase() + ";WRITE_DELAY=0";
-    try (Connection c = DriverManager.getConnection(url, "sa", "")) {
-      createTables(c);
+    try (Connection c = CommandLineDatabase.open(dir)) {
       // The column widths as the migrations set them, read from the database as the service does.
       AuditColumns audit = new AuditColumns(new JdbcTemplate(new SingleConnectionDataSource(c,
           true)));
@@ -85,7 +79,7 @@ public final class ThresholdAudit {
         throw e;
       }
     } catch (SQLException | org.springframework.dao.DataAccessException e) {
-      if (e instanceof SQLException sql && sql.getErrorCode() == DATABASE_ALREADY_OPEN) {
+      if (e instanceof SQLException sql && CommandLineDatabase.heldByService(sql)) {
         throw new IOException("the service is running on " + dir.root() + " (its database "
             + dir.serviceDatabase() + ".mv.db is in use): change the threshold on its manager "
             + "page, or stop it first; the threshold in force is unchanged", e);
@@ -94,12 +88,6 @@ public final class ThresholdAudit {
           + "recorded (" + e.getMessage() + "); the threshold in force is unchanged", e);
     }
     AtomicFiles.makePrivate(dir.serviceDatabase().getParent());
-  }
-
-  /** The service's own schema, so that a change made before the service ever ran is kept too. */
-  private static void createTables(Connection c) {
-    // The same migrations as the service's own start runs.
-    ServiceSchema.migrate(new SingleConnectionDataSource(c, true));
   }
 
   /** Every digit of each threshold, at least four decimals: the audit names the rule exactly. */

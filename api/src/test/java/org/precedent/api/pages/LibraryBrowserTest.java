@@ -132,4 +132,26 @@ class LibraryBrowserTest {
     browser.find("#search-button").click();
     browser.showing("#list-status", "0 answers");
   }
+
+  @Test
+  void anAgentsProposedEditIsTakenIntoANewVersionByAManager() {
+    signIn("demo-manager-key");
+    var button = browser.all("#answers tbody tr button.link").get(4);
+    String id = button.getAttribute("data-id");
+    String proposed = "Put the bin out by seven on the morning of collection.";
+    assertEquals(201, service.http().post("/api/v1/feedback", Map.of("question",
+        "when do I put my bin out", "answerGroup", id, "verdict", "EDITED", "finalText", proposed,
+        "propose", true), Caller.AGENT).status());
+    assertEquals(400, service.http().post("/api/v1/feedback", Map.of("question",
+        "when do I put my bin out", "answerGroup", id, "verdict", "ACCEPTED", "propose", true),
+        Caller.AGENT).status());
+    open(4);
+    browser.showing("#detail-edits", "proposed it as the next version");
+    browser.find("#detail-edits .use-proposal").click();
+    assertEquals(proposed, browser.find("#edit-text").getDomProperty("value"));
+    browser.find("#save").click();
+    browser.showing("#change-status", "version 2");
+    assertEquals(proposed, service.http().get("/api/v1/answers/" + id, Caller.AGENT).json()
+        .get("answer").get("text").asText());
+  }
 }

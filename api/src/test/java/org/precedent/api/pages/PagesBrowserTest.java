@@ -107,11 +107,15 @@ class PagesBrowserTest {
     suggestions.get(0).findElement(org.openqa.selenium.By.cssSelector(".accept")).click();
     browser.showing("#suggestions > li:first-child .status", "Recorded: accepted");
     JdbcTemplate db = service.bean(JdbcTemplate.class);
-    Map<String, Object> row = db.queryForMap("SELECT agent, answer_group, verdict, final_text "
-        + "FROM suggestion_feedback ORDER BY id DESC LIMIT 1");
+    Map<String, Object> row = db.queryForMap("SELECT agent, answer_group, verdict, final_text, "
+        + "suggested_text FROM suggestion_feedback ORDER BY id DESC LIMIT 1");
     assertEquals("agent", row.get("AGENT"));
     assertEquals(accepted, row.get("ANSWER_GROUP"));
     assertEquals("ACCEPTED", row.get("VERDICT"));
+    // The accepted text is kept as shown, for training to learn from what was sent.
+    assertEquals(suggestions.get(0).findElement(org.openqa.selenium.By.cssSelector(".answer"))
+        .getText().replaceAll("\\s+", " ").strip(),
+        String.valueOf(row.get("SUGGESTED_TEXT")).replaceAll("\\s+", " ").strip());
 
     if (suggestions.size() > 1) {
       WebElement second = suggestions.get(1);
@@ -119,11 +123,14 @@ class PagesBrowserTest {
       WebElement text = second.findElement(org.openqa.selenium.By.cssSelector(".final-text"));
       text.clear();
       text.sendKeys("We will send a crew to collect it tomorrow.");
+      second.findElement(org.openqa.selenium.By.cssSelector(".propose")).click();
       second.findElement(org.openqa.selenium.By.cssSelector(".send-edit")).click();
       browser.showing("#suggestions > li:nth-child(2) .status", "Recorded: edited");
-      Map<String, Object> edited = db.queryForMap("SELECT verdict, final_text "
+      browser.showing("#suggestions > li:nth-child(2) .status", "proposed to the library");
+      Map<String, Object> edited = db.queryForMap("SELECT verdict, final_text, proposed "
           + "FROM suggestion_feedback ORDER BY id DESC LIMIT 1");
       assertEquals("EDITED", edited.get("VERDICT"));
+      assertEquals(Boolean.TRUE, edited.get("PROPOSED"));
       assertEquals("We will send a crew to collect it tomorrow.", edited.get("FINAL_TEXT"));
     }
   }

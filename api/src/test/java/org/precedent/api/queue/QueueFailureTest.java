@@ -5,12 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
-import java.io.IOException;
-import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.nio.file.StandardOpenOption;
 import java.util.HashSet;
 import java.util.Map;
 import java.util.Set;
@@ -27,26 +21,19 @@ import org.precedent.api.testing.TrainedData;
  * A ticket whose decision throws, even a {@link StackOverflowError}, fails alone: it is tried a
  * few times, then marked failed with its reason, and the tickets behind it are decided.
  *
- * <p>The fault is a real one: the data directory's safety policy holds a rule that a help desk
- * could well write, a repeated group, which java.util.regex matches by recursing once per
- * repetition; a question with thousands of repetitions overflows the stack of any thread that
- * checks it.
+ * <p>The fault is a real one ({@link TrainedData#copyWithOverflowingRule}): the data directory's
+ * safety policy holds a rule with a repeated group, which java.util.regex matches by recursing
+ * once per repetition, and a question with thousands of repetitions overflows the stack.
  */
 class QueueFailureTest {
-  static final String HOSTILE = "my bin was not emptied " + "a'".repeat(5000);
+  static final String HOSTILE = TrainedData.OVERFLOWING_QUESTION;
   static RunningService service;
   static Http http;
 
   @BeforeAll
   static void start() {
-    Path data = TrainedData.copy();
-    try {
-      Files.writeString(data.resolve("safety.rules"), "\nrule apostrophe-words | health | "
-          + "(?:[a-z]+')+x\n", StandardCharsets.UTF_8, StandardOpenOption.APPEND);
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
-    service = RunningService.startOn(data, "--precedent.queue.poll-ms=100");
+    service = RunningService.startOn(TrainedData.copyWithOverflowingRule(),
+        "--precedent.queue.poll-ms=100");
     http = service.http();
   }
 
@@ -77,6 +64,12 @@ class QueueFailureTest {
     assertEquals(TicketQueue.MAX_ATTEMPTS, failed.get("attempts").asInt());
     assertTrue(failed.get("failure").asText().contains("ran out of stack"), failed.toString());
     assertTrue(failed.get("decision") == null, "a failed ticket carries no decision");
+    // The agents' list shows it among the failed, with its reason.
+    JsonNode listed = http.get("/api/v1/queue/tickets?state=failed&search=H-1", Caller.AGENT)
+        .json().get("tickets").get(0);
+    assertEquals("H-1", listed.get("ticketId").asText());
+    assertEquals("FAILED", listed.get("state").asText());
+    assertEquals(failed.get("failure").asText(), listed.get("failure").asText());
     JsonNode decided = awaitState("N-1", "DECIDED");
     assertEquals(1, decided.get("attempts").asInt());
     assertTrue(decided.get("failure") == null, decided.toString());

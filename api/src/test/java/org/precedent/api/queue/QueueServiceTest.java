@@ -127,4 +127,63 @@ class QueueServiceTest {
     assertEquals(400, bad.status());
     assertEquals("ticketId", bad.json().get("errors").get(0).get("field").asText());
   }
+
+  /** The list agents read: newest first, paged, filtered by state, reason and text; agents only. */
+  @Test
+  void agentsListTheQueueNewestFirstFilteredAndPaged() throws Exception {
+    for (int i = 1; i <= 3; i++) {
+      assertEquals(202, http().post("/api/v1/queue/tickets", Map.of("ticketId", "L-" + i,
+          "question", "Where do I pay my bill, listwordqx " + i + "?"), Caller.QUEUE).status());
+    }
+    String reason = null;
+    for (int i = 1; i <= 3; i++) {
+      JsonNode d = decided("L-" + i).get("decision");
+      reason = d.get("outcome").asText().equals("HAND_OFF") ? d.get("reason").asText() : reason;
+    }
+    Reply all = http().get("/api/v1/queue/tickets?search=LISTWORDQX", Caller.AGENT);
+    assertEquals(200, all.status(), all.raw().body());
+    assertEquals(3, all.json().get("total").asInt());
+    List<String> ids = new ArrayList<>();
+    all.json().get("tickets").forEach(t -> ids.add(t.get("ticketId").asText()));
+    assertEquals(List.of("L-3", "L-2", "L-1"), ids);
+    JsonNode first = all.json().get("tickets").get(0);
+    assertTrue(Set.of("REPLIED", "HANDED_OFF").contains(first.get("state").asText()));
+    assertTrue(first.get("confidence").isNumber() && first.get("threshold").isNumber(),
+        first.toString());
+    Reply second = http().get("/api/v1/queue/tickets?search=listwordqx&size=2&page=2",
+        Caller.MANAGER);
+    assertEquals(200, second.status());
+    assertEquals(3, second.json().get("total").asInt());
+    assertEquals(1, second.json().get("tickets").size());
+    assertEquals("L-1", second.json().get("tickets").get(0).get("ticketId").asText());
+    // Nothing is approved in the library, so the queue hands every ticket off (api.answers).
+    assertTrue(reason != null, "no hand-off among the three");
+    {
+      Reply byReason = http().get("/api/v1/queue/tickets?search=listwordqx&state=handed_off"
+          + "&reason=" + reason, Caller.AGENT);
+      assertFalse(byReason.json().get("tickets").isEmpty());
+      byReason.json().get("tickets").forEach(t -> {
+        assertEquals("HANDED_OFF", t.get("state").asText());
+        assertEquals(http().get("/api/v1/queue/tickets/" + t.get("ticketId").asText(),
+            Caller.AGENT).json().get("decision").get("reason").asText(), t.get("reason").asText());
+      });
+    }
+    assertEquals(0, http().get("/api/v1/queue/tickets?search=listwordqx&state=failed",
+        Caller.AGENT).json().get("total").asInt());
+    // The wild cards of LIKE are searched as typed characters.
+    assertEquals(0, http().get("/api/v1/queue/tickets?search=listword%25", Caller.AGENT).json()
+        .get("total").asInt());
+    assertEquals(403, http().get("/api/v1/queue/tickets", Caller.QUEUE).status());
+    assertEquals(401, http().get("/api/v1/queue/tickets", Caller.NOBODY).status());
+    for (String[] bad : new String[][] {{"state=lost", "state"}, {"reason=tired", "reason"},
+        {"size=0", "size"}, {"size=101", "size"}, {"page=x", "page"},
+        {"search=" + "a".repeat(201), "search"}}) {
+      Reply r = http().get("/api/v1/queue/tickets?" + bad[0], Caller.AGENT);
+      assertEquals(400, r.status(), bad[0]);
+      assertEquals("application/problem+json", r.header("Content-Type"));
+      assertEquals(bad[1], r.json().get("errors").get(0).get("field").asText(), bad[0]);
+    }
+    JsonNode paths = http().get("/api/v1/openapi", Caller.NOBODY).json().get("paths");
+    assertTrue(paths.get("/api/v1/queue/tickets").has("get"), paths.toString());
+  }
 }

@@ -20,7 +20,8 @@ class ServiceSchemaTest {
       {"threshold_change", "reason"}, {"threshold_change", "old_value"},
       {"threshold_change", "new_value"}, {"model_activation", "reason"},
       {"model_activation", "comparison"},
-      {"suggestion_feedback", "final_text"}, {"queue_ticket", "question"}};
+      {"suggestion_feedback", "final_text"}, {"suggestion_feedback", "suggested_text"},
+      {"queue_ticket", "question"}};
 
   private static DataSource h2() {
     return new DriverManagerDataSource("jdbc:h2:mem:schema" + System.nanoTime()
@@ -55,8 +56,8 @@ class ServiceSchemaTest {
       ServiceSchema.migrate(db);
       ServiceSchema.migrate(db);
       JdbcTemplate t = new JdbcTemplate(db);
-      // Each script applied once: V1 to V4 (an empty database is not baselined).
-      assertEquals(List.of("1", "2", "3", "4"), t.queryForList("SELECT \"version\" FROM \"flyway_schema_history\""
+      // Each script applied once: V1 to V5 (an empty database is not baselined).
+      assertEquals(List.of("1", "2", "3", "4", "5"), t.queryForList("SELECT \"version\" FROM \"flyway_schema_history\""
           + " WHERE \"type\" = 'SQL' ORDER BY \"installed_rank\"", String.class));
     }
   }
@@ -65,12 +66,13 @@ class ServiceSchemaTest {
   @Test
   void anActivationRecordedBeforeV4HasNoComparisonAndNoAcknowledgement() {
     DataSource h2 = h2();
-    org.flywaydb.core.Flyway.configure().dataSource(h2).locations("classpath:db/migration")
-        .target("3").load().migrate();
-    // PostgreSQL, migrated by @BeforeEach: taken back to V3 by hand.
-    JdbcTemplate pg = new JdbcTemplate(postgres.dataSource());
-    pg.execute("ALTER TABLE model_activation DROP COLUMN comparison, DROP COLUMN acknowledged");
-    pg.update("DELETE FROM \"flyway_schema_history\" WHERE \"version\" = '4'");
+    // PostgreSQL, migrated by @BeforeEach: emptied, so that both start at V3.
+    new JdbcTemplate(postgres.dataSource()).execute("DROP SCHEMA public CASCADE; "
+        + "CREATE SCHEMA public");
+    for (DataSource db : List.of(h2, postgres.dataSource())) {
+      org.flywaydb.core.Flyway.configure().dataSource(db).locations("classpath:db/migration")
+          .target("3").load().migrate();
+    }
     for (DataSource db : List.of(h2, postgres.dataSource())) {
       JdbcTemplate t = new JdbcTemplate(db);
       t.update("INSERT INTO model_activation (activated_by, activated_at, old_version, "

@@ -12,10 +12,12 @@ public final class RunningService implements AutoCloseable {
   private final Path data;
   private final ConfigurableApplicationContext context;
   private final Http http;
+  private final boolean keep;
 
-  private RunningService(Path data, ConfigurableApplicationContext context) {
+  private RunningService(Path data, ConfigurableApplicationContext context, boolean keep) {
     this.data = data;
     this.context = context;
+    this.keep = keep;
     this.http = new Http(PrecedentServer.port(context));
   }
 
@@ -25,8 +27,20 @@ public final class RunningService implements AutoCloseable {
 
   /** The service over {@code data}, a copy the caller prepared (it is deleted on close). */
   public static RunningService startOn(Path data, String... settings) {
+    return start(data, false, settings);
+  }
+
+  /**
+   * The service over {@code data}, which outlives it: for a test that reads what the service
+   * stored once it stopped (the caller deletes the directory).
+   */
+  public static RunningService startKeeping(Path data, String... settings) {
+    return start(data, true, settings);
+  }
+
+  private static RunningService start(Path data, boolean keep, String... settings) {
     try {
-      return new RunningService(data, PrecedentServer.start(data, 0, List.of(settings)));
+      return new RunningService(data, PrecedentServer.start(data, 0, List.of(settings)), keep);
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
@@ -47,6 +61,8 @@ public final class RunningService implements AutoCloseable {
   @Override
   public void close() {
     context.close();
-    TrainedData.delete(data);
+    if (!keep) {
+      TrainedData.delete(data);
+    }
   }
 }

@@ -2,8 +2,10 @@ package org.precedent.api.testing;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Stream;
@@ -50,6 +52,25 @@ public final class TrainedData {
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
+  }
+
+  /** A question that overflows the stack of whoever checks it against {@link #copyWithOverflowingRule}'s rule. */
+  public static final String OVERFLOWING_QUESTION = "my bin was not emptied " + "a'".repeat(5000);
+
+  /**
+   * A copy whose safety policy holds a rule a help desk could well write, a repeated group, which
+   * java.util.regex matches by recursing once per repetition: {@link #OVERFLOWING_QUESTION}
+   * overflows the stack of any thread that checks it, a real fault of a decision.
+   */
+  public static Path copyWithOverflowingRule() {
+    Path data = copy();
+    try {
+      Files.writeString(data.resolve("safety.rules"), "\nrule apostrophe-words | health | "
+          + "(?:[a-z]+')+x\n", StandardCharsets.UTF_8, StandardOpenOption.APPEND);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    return data;
   }
 
   private static Path build() throws IOException {

@@ -37,6 +37,7 @@ public final class InForce implements Closeable {
   private final DenseLeg dense;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
+  private final SlotFields slotFields;
 
   private final OpenTimes openTimes;
 
@@ -53,7 +54,7 @@ public final class InForce implements Closeable {
 
   private InForce(Knowledge knowledge, Retriever retriever, String version, DeferredScorer scorer,
       FusionModel fusion, DenseLeg dense, SafetyPolicy safety, Thresholds thresholds,
-      OpenTimes openTimes) {
+      SlotFields slotFields, OpenTimes openTimes) {
     this.openTimes = openTimes;
     this.knowledge = knowledge;
     this.retriever = retriever;
@@ -63,6 +64,7 @@ public final class InForce implements Closeable {
     this.dense = dense;
     this.safety = safety;
     this.thresholds = thresholds;
+    this.slotFields = slotFields;
   }
 
   /** Opens what is in force; a clear IOException says what is missing. */
@@ -120,8 +122,8 @@ public final class InForce implements Closeable {
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
       long reranker = deferReranker ? 0 : scorer.loadNanos();
       return new InForce(knowledge, retriever, version, scorer, fusion, dense, safety,
-          readThresholds(dir), new OpenTimes(millis(t1 - t0), millis(t2 - t1),
-              millis(t3 - t2 - reranker), millis(t4 - t3)));
+          readThresholds(dir), SlotFields.read(dir.slotFields()), new OpenTimes(millis(t1 - t0),
+              millis(t2 - t1), millis(t3 - t2 - reranker), millis(t4 - t3)));
     } catch (IOException | RuntimeException e) {
       if (dense != null) {
         dense.close();
@@ -180,7 +182,8 @@ public final class InForce implements Closeable {
 
   /** The pipeline that decides with what is in force. */
   public Pipeline pipeline(RerankerUse rerankerUse) {
-    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds, rerankerUse);
+    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds, rerankerUse)
+        .withSlotFields(slotFields);
   }
 
   public Knowledge knowledge() {

@@ -3,6 +3,7 @@ package org.precedent.engine.decide;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import org.precedent.engine.candidates.CandidateScoring;
 import org.precedent.engine.explain.Explanation;
@@ -31,10 +32,16 @@ public final class Pipeline {
   private final Thresholds thresholds;
   private final RerankerUse rerankerUse;
   private final List<ScoringSystem> systems;
+  private final SlotFields slotFields;
   private final TextCleaner cleaner = TextCleaner.standard();
 
   Pipeline(CandidateStages candidates, Ranker ranker, SafetyPolicy safety, Thresholds thresholds,
       RerankerUse rerankerUse) {
+    this(candidates, ranker, safety, thresholds, rerankerUse, SlotFields.NONE);
+  }
+
+  private Pipeline(CandidateStages candidates, Ranker ranker, SafetyPolicy safety,
+      Thresholds thresholds, RerankerUse rerankerUse, SlotFields slotFields) {
     this.candidates = candidates;
     this.ranker = ranker;
     this.safety = safety;
@@ -45,11 +52,22 @@ public final class Pipeline {
       case ON_DISAGREEMENT -> true;
       case NEVER -> !s.usesReranker();
     }).toList();
+    this.slotFields = slotFields;
   }
 
   /** The same stages deciding with other thresholds. */
   public Pipeline withThresholds(Thresholds newThresholds) {
-    return new Pipeline(candidates, ranker, safety, newThresholds, rerankerUse);
+    return new Pipeline(candidates, ranker, safety, newThresholds, rerankerUse, slotFields);
+  }
+
+  /** The same stages, filling an answer's slots from the ticket's fields that {@code map} names. */
+  public Pipeline withSlotFields(SlotFields map) {
+    return new Pipeline(candidates, ranker, safety, thresholds, rerankerUse, map);
+  }
+
+  /** Which ticket field fills which slot. */
+  public SlotFields slotFields() {
+    return slotFields;
   }
 
   /**
@@ -114,6 +132,14 @@ public final class Pipeline {
    * @param category the ticket's category if known, else null
    */
   public Decision decideCleaned(String question, String category) {
+    return decideCleaned(question, category, Map.of());
+  }
+
+  /**
+   * @param fields the ticket's own fields, by name: an answer whose slots all have a field named
+   *               for them ({@link SlotFields}) is sent with them filled in, else handed off
+   */
+  public Decision decideCleaned(String question, String category, Map<String, String> fields) {
     ScoringSystem system = decisionSystem();
     CandidateScoring scoring = candidates.retrieve(question, null);
     if (reranks(system, scoring)) {
@@ -168,7 +194,15 @@ public final class Pipeline {
               parts), truncated);
     }
     List<String> slots = SafetyGate.slots(best);
-    if (!slots.isEmpty()) {
+    Optional<String> filled = slots.isEmpty() ? Optional.empty()
+        : slotFields.fill(best.template(), fields);
+    if (filled.isPresent()) {
+      // Named by field, not by value: the customer's details stay in the reply alone.
+      parts.add(0, Explanation.fact("slots filled", slotFields.fieldsFor(best.template())
+          .entrySet().stream().map(e -> e.getKey() + " from field " + e.getValue())
+          .collect(java.util.stream.Collectors.joining(", "))));
+    }
+    if (!slots.isEmpty() && filled.isEmpty()) {
       parts.add(0, Explanation.fact("answer template", best.template()));
       return new Decision(Outcome.HAND_OFF, HandOffReason.NEEDS_CUSTOMER_DETAILS, question,
           groupId, null, confidence, threshold, null, null, candidates,
@@ -186,10 +220,11 @@ public final class Pipeline {
                   ThresholdDecimals.confidence(confidence, threshold),
                   ThresholdDecimals.of(threshold)), parts), truncated);
     }
-    return new Decision(Outcome.REPLY, null, question, groupId, best.canonical(), confidence,
-        threshold, null, null, candidates, why(null, confidence, String.format(Locale.ROOT,
-            "Answer %s has confidence %s, at or above the threshold %s; it resolved %d past "
-                + "tickets.", groupId, ThresholdDecimals.confidence(confidence, threshold),
+    return new Decision(Outcome.REPLY, null, question, groupId, filled.orElse(best.canonical()),
+        confidence, threshold, null, null, candidates, why(null, confidence,
+            String.format(Locale.ROOT, "Answer %s%s has confidence %s, at or above the threshold "
+                + "%s; it resolved %d past tickets.", groupId,
+                filled.isPresent() ? ", its slots filled from the ticket's fields," : "", ThresholdDecimals.confidence(confidence, threshold),
             ThresholdDecimals.of(threshold), best.size()), parts), truncated);
   }
 

@@ -11,6 +11,7 @@ import java.util.Set;
  * its own output (none contains a digit or an {@code @}).
  */
 public final class Placeholders {
+  public static final String URL = "[URL]";
   public static final String EMAIL = "[EMAIL]";
   public static final String PHONE = "[PHONE]";
   public static final String CARD = "[CARD]";
@@ -19,7 +20,7 @@ public final class Placeholders {
 
   // Listed in the order the redactor applies its rules, so callers that print them read naturally.
   private static final Set<String> ALL =
-      Collections.unmodifiableSet(new LinkedHashSet<>(List.of(EMAIL, IBAN, CARD, ACCOUNT, PHONE)));
+      Collections.unmodifiableSet(new LinkedHashSet<>(List.of(URL, EMAIL, IBAN, CARD, ACCOUNT, PHONE)));
 
   private Placeholders() {}
 

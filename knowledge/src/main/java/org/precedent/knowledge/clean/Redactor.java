@@ -5,7 +5,10 @@ import java.util.regex.Pattern;
 
 /**
  * Replaces personal data with typed placeholders by running a fixed list of rules in order. The
- * order matters: e-mail addresses go first because they may contain digits; IBANs before cards
+ * order matters: web addresses go first because they may hold an '@', digits and whole e-mail
+ * addresses or numbers in their query (a kept address is still searched by the rules after it, so
+ * a customer's number in the query of the organisation's own page is redacted); e-mail addresses
+ * next because they may contain digits; IBANs before cards
  * because an IBAN's digits can pass the Luhn check; cards before phones so that a 16-digit card
  * is not read as a phone number; account numbers before phones for the same reason.
  */
@@ -25,6 +28,7 @@ final class Redactor {
   private static final Pattern ACCOUNT =
       Pattern.compile("(?<![A-Za-z0-9])(?i:tvw)[ -]?\\d{8}(?!\\d)");
 
+  private static final UrlRule URLS = new UrlRule(url -> false);
   private static final PatternRule EMAILS =
       new PatternRule(EMAIL, Placeholders.EMAIL, t -> t.indexOf('@') >= 0);
   private static final List<PatternRule> PHONES = List.of(
@@ -47,6 +51,7 @@ final class Redactor {
   /** Every rule, in order, with the organisation's own e-mail addresses and numbers left alone. */
   static Redactor keeping(OwnDetails own) {
     List<Rule> rules = new java.util.ArrayList<>();
+    rules.add(new UrlRule(own::keepsUrl));
     rules.add(EMAILS.keeping(own::keepsEmail));
     rules.add(new IbanRule());
     rules.add(new CardRule());
@@ -58,12 +63,14 @@ final class Redactor {
   }
 
   /**
-   * The e-mail addresses and phone numbers in {@code text}, as written, in the order the rules
-   * find them; what redaction would replace, unless kept.
+   * The web addresses, e-mail addresses and phone numbers in {@code text}, as written, in the order
+   * the rules find them; what redaction would replace, unless kept.
    */
   static List<String> contacts(String text) {
-    List<String> found = new java.util.ArrayList<>(EMAILS.matches(text));
-    String rest = EMAILS.apply(text);
+    List<String> found = new java.util.ArrayList<>(UrlRule.matches(text));
+    String rest = URLS.apply(text);
+    found.addAll(EMAILS.matches(rest));
+    rest = EMAILS.apply(rest);
     for (PatternRule phone : PHONES) {
       found.addAll(phone.matches(rest));
       rest = phone.apply(rest);

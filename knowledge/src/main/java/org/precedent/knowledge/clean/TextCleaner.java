@@ -33,8 +33,8 @@ public final class TextCleaner {
   }
 
   /**
-   * The e-mail addresses and phone numbers that redaction finds in {@code raw}, as written (before
-   * any are kept): what ingest counts to propose the organisation's own details.
+   * The web addresses, e-mail addresses and phone numbers that redaction finds in {@code raw}, as
+   * written (before any are kept): what ingest counts to propose the organisation's own details.
    */
   public static java.util.List<String> contactsIn(String raw) {
     return Redactor.contacts(Whitespace.normalise(Objects.requireNonNull(raw, "raw")));

@@ -28,9 +28,10 @@ public record IngestReport(String file, long read, long stored, long updated, lo
   }
 
   /**
-   * A phone number or e-mail address found in the replies of {@code groups} answer groups.
+   * A phone number, e-mail address or web address found in the replies of {@code groups} answer
+   * groups.
    *
-   * @param kind  "phone" or "email", as the own-details file names it
+   * @param kind  "phone", "email" or "url", as the own-details file names it
    * @param value as first written in a reply
    */
   public record ProposedDetail(String kind, String value, int groups, int tickets) {}

@@ -255,8 +255,8 @@ public final class Ingestor {
       long groups = use.tickets().stream().map(groupOf::get).filter(Objects::nonNull)
           .distinct().count();
       if (groups >= PROPOSE_FROM_GROUPS) {
-        proposed.add(new IngestReport.ProposedDetail(use.written().indexOf('@') >= 0 ? "email"
-            : "phone", use.written(), (int) groups, use.tickets().size()));
+        proposed.add(new IngestReport.ProposedDetail(OwnDetails.kind(use.written()),
+            use.written(), (int) groups, use.tickets().size()));
       }
     }
     proposed.sort(Comparator.comparingInt(IngestReport.ProposedDetail::groups)

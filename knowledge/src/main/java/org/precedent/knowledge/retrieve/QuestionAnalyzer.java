@@ -20,7 +20,8 @@ import org.apache.lucene.analysis.standard.StandardTokenizer;
  * highlighting still marks the right characters.
  */
 final class QuestionAnalyzer extends Analyzer {
-  private static final Pattern PLACEHOLDER = Pattern.compile("\\[(?:EMAIL|PHONE|CARD|IBAN|ACCOUNT)\\]");
+  private static final Pattern PLACEHOLDER = Pattern.compile(
+      "\\[(?:URL|EMAIL|PHONE|CARD|IBAN|ACCOUNT)\\]");
 
   @Override
   protected Reader initReader(String fieldName, Reader reader) {

@@ -23,7 +23,7 @@ import java.util.stream.Stream;
  * change builds a complete new generation, then replaces CURRENT atomically, so a crash at any
  * moment leaves the previous generation serving. Model versions live under {@code models/}; beside
  * them the team's settings ({@code own-details.txt}, {@code safety.rules},
- * {@code thresholds.properties}), evaluation reports ({@code reports/}) and the service's own files.
+ * {@code thresholds.properties}, {@code slot-fields.properties}), evaluation reports ({@code reports/}) and the service's own files.
  * Every name in the directory is given here, so that no other class knows the layout.
  *
  * <p>The directory holds customers' questions and the audit, so it is kept private to its owner:
@@ -59,6 +59,14 @@ public final class DataDir {
   /** The team's safety rules; without the file the built-in rules apply. */
   public Path safetyRules() {
     return root.resolve("safety.rules");
+  }
+
+  /**
+   * Which field of an incoming ticket fills which slot of an answer ({@code
+   * engine.decide.SlotFields}); without the file every answer with slots goes to a person.
+   */
+  public Path slotFields() {
+    return root.resolve("slot-fields.properties");
   }
 
   /** The thresholds in force; without the file the default threshold applies. */

@@ -58,7 +58,8 @@ class OwnDetailsTest {
     assertTrue(e.getMessage().endsWith("own-details.txt:2: '12' is not a phone number (7 to 15 "
         + "digits, with spaces, dots, hyphens, brackets or a leading +)"), e.getMessage());
     e = assertThrows(IOException.class, () -> read("\n\nfax 01632 960999\n"));
-    assertTrue(e.getMessage().contains("own-details.txt:3: expected 'phone VALUE' or 'email VALUE'"),
+    assertTrue(e.getMessage().contains("own-details.txt:3: expected 'phone VALUE', 'email VALUE' or "
+        + "'url VALUE'"),
         e.getMessage());
     e = assertThrows(IOException.class, () -> read("email nobody\n"));
     assertTrue(e.getMessage().contains(":1: 'nobody' is not an e-mail address"), e.getMessage());

@@ -79,7 +79,7 @@ class RedactionTest {
 
   @Test
   void listsEveryPlaceholderInRuleOrder() {
-    assertEquals(List.of("[EMAIL]", "[IBAN]", "[CARD]", "[ACCOUNT]", "[PHONE]"),
+    assertEquals(List.of("[URL]", "[EMAIL]", "[IBAN]", "[CARD]", "[ACCOUNT]", "[PHONE]"),
         List.copyOf(Placeholders.all()));
   }
 }

@@ -116,6 +116,22 @@ class IngestorTest {
   }
 
   @Test
+  void aWebAddressInTheRepliesOfThreeGroupsIsProposedAndOnceDeclaredStays() throws Exception {
+    String site = "https://www.tarnwickvale.example/help";
+    IngestReport report = ingest(write("sites.csv", repliesWithNumbers(site)));
+    assertEquals(List.of(new IngestReport.ProposedDetail("url", site, 3, 9)),
+        report.proposedOwnDetails());
+    assertTrue(Knowledge.open(data).orElseThrow().tickets().get("A0-1").reply().contains("[URL]"),
+        "not declared yet");
+    Files.writeString(data.ownDetails(), "url " + site + "\n");
+    IngestReport again = Ingestor.of(data, AnswerGrouper.standard()).ingest(
+        write("sites.csv", repliesWithNumbers(site)), ExportFormat.CSV, mapping,
+        Progress.silent(), Progress.silent());
+    assertEquals(List.of(), again.proposedOwnDetails());
+    assertTrue(Knowledge.open(data).orElseThrow().tickets().get("A1-2").reply().contains(site));
+  }
+
+  @Test
   void aDeclaredOwnNumberStaysInAnswersAndIsNoLongerProposed() throws Exception {
     Files.createDirectories(data.root());
     Files.writeString(data.ownDetails(), "# the desk\nphone 01632-960-999\n");

@@ -8,8 +8,8 @@ import java.util.Locale;
  * Splits text into word-level tokens for the reranker.
  *
  * <p>Words are lower-cased; each punctuation mark is a token of its own, so "card?" and "card" share
- * the word. Redaction placeholders such as {@code [EMAIL]}, {@code [PHONE]}, {@code [CARD]}, {@code [IBAN]}
- * and {@code [ACCOUNT]} stay whole and upper-case: they stand for a kind of value, and splitting them
+ * the word. Redaction placeholders such as {@code [URL]}, {@code [EMAIL]}, {@code [PHONE]},
+ * {@code [CARD]}, {@code [IBAN]} and {@code [ACCOUNT]} stay whole and upper-case: they stand for a kind of value, and splitting them
  * would make "[" and "]" the most common tokens of redacted data. A contraction such as "don't" stays
  * one word because splitting it gives the model nothing it can use.
  *
