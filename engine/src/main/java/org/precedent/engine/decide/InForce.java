@@ -4,6 +4,7 @@ import java.io.Closeable;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.concurrent.CompletableFuture;
 import org.precedent.engine.dense.AnswerClassifier;
 import org.precedent.engine.dense.DenseLeg;
 import org.precedent.engine.fusion.FusionModel;
@@ -48,7 +49,8 @@ public final class InForce implements Closeable {
    * @param knowledge the stored generation (groups, manifest)
    * @param index     the Lucene index and the per-ticket tables held in memory
    * @param model     the model version's files checked against its manifest, and fusion read
-   * @param dense     the dense leg: the sentence encoder's session and the answer classifier
+   * @param dense     the dense leg: the sentence encoder's session and the answer classifier,
+   *                  made on a thread of its own beside the index (so not added to the others)
    */
   public record OpenTimes(long knowledge, long index, long model, long dense) {}
 
@@ -97,39 +99,89 @@ public final class InForce implements Closeable {
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
     long t1 = System.nanoTime();
-    Retriever retriever = Retriever.open(knowledge);
+    ModelStore store = new ModelStore(dir.models());
+    String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
+        () -> new IOException("no trained model in " + dir.root()
+            + " yet: run 'precedent train' first"));
+    // Every file of the version is checked before any is read.
+    store.verify(version);
+    FusionModel fusion = FusionModel.load(store.directory(version));
     long t2 = System.nanoTime();
+    // The encoder's session (native code, most of an opening's time) is made beside the index.
+    long[] denseNanos = new long[1];
+    CompletableFuture<DenseLeg> opening = new CompletableFuture<>();
+    Thread denseThread = new Thread(() -> {
+      long d0 = System.nanoTime();
+      try {
+        opening.complete(openDenseLeg(knowledge, store.directory(version), fusion));
+      } catch (Throwable e) {
+        opening.completeExceptionally(e);
+      }
+      denseNanos[0] = System.nanoTime() - d0;
+    }, "precedent-open-dense-leg");
+    denseThread.setDaemon(true);
+    denseThread.start();
+    Retriever retriever = null;
     DenseLeg dense = null;
     try {
-      ModelStore store = new ModelStore(dir.models());
-      String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
-          () -> new IOException("no trained model in " + dir.root()
-              + " yet: run 'precedent train' first"));
+      retriever = Retriever.open(knowledge);
+      long t3 = System.nanoTime();
       DeferredScorer scorer;
       if (deferReranker) {
-        store.verify(version);
         scorer = new DeferredScorer(() -> new Scorer(store.load(version)));
       } else {
         long l0 = System.nanoTime();
         Scorer loaded = new Scorer(store.load(version));
         scorer = new DeferredScorer(loaded, System.nanoTime() - l0);
       }
-      FusionModel fusion = FusionModel.load(store.directory(version));
-      long t3 = System.nanoTime();
-      dense = openDenseLeg(knowledge, store.directory(version), fusion);
-      long t4 = System.nanoTime();
+      dense = joined(opening);
+      denseThread.join();
       Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
-      long reranker = deferReranker ? 0 : scorer.loadNanos();
       return new InForce(knowledge, retriever, version, scorer, fusion, dense, safety,
           readThresholds(dir), SlotFields.read(dir.slotFields()), new OpenTimes(millis(t1 - t0),
-              millis(t2 - t1), millis(t3 - t2 - reranker), millis(t4 - t3)));
-    } catch (IOException | RuntimeException e) {
+              millis(t3 - t2), millis(t2 - t1), millis(denseNanos[0])));
+    } catch (IOException | RuntimeException | InterruptedException e) {
+      if (dense == null) {
+        try {
+          dense = joined(opening);
+        } catch (IOException | RuntimeException ignored) {
+          // The opening's own failure is the one reported.
+        }
+      }
       if (dense != null) {
         dense.close();
       }
-      retriever.close();
-      throw e;
+      if (retriever != null) {
+        retriever.close();
+      }
+      if (e instanceof InterruptedException) {
+        Thread.currentThread().interrupt();
+        throw new IOException("interrupted while opening " + dir.root(), e);
+      }
+      if (e instanceof IOException io) {
+        throw io;
+      }
+      throw (RuntimeException) e;
+    }
+  }
+
+  /** The dense leg the opening thread made, its failure rethrown as it was. */
+  private static DenseLeg joined(CompletableFuture<DenseLeg> opening) throws IOException {
+    try {
+      return opening.join();
+    } catch (java.util.concurrent.CompletionException e) {
+      Throwable cause = e.getCause();
+      if (cause instanceof IOException io) {
+        throw io;
+      }
+      if (cause instanceof RuntimeException r) {
+        throw r;
+      }
+      if (cause instanceof Error err) {
+        throw err;
+      }
+      throw new IOException(cause);
     }
   }
 
