@@ -83,7 +83,7 @@ class QueueDatabaseOutageTest {
       postgres.start();
       long restarted = System.nanoTime();
 
-      awaitHealthy(http);
+      http.awaitHealthy("the database was back");
       System.out.printf("database outage: healthy %d ms after the database was back%n",
           (System.nanoTime() - restarted) / 1_000_000);
       // The refused ticket, sent again, is accepted; so is a new one.
@@ -125,18 +125,5 @@ class QueueDatabaseOutageTest {
   private static int count(JdbcTemplate db, String status) {
     return db.queryForObject("SELECT COUNT(*) FROM queue_ticket WHERE status = ?",
         Integer.class, status);
-  }
-
-  private static void awaitHealthy(Http http) throws InterruptedException {
-    Reply last = null;
-    for (int i = 0; i < 300; i++) {
-      last = http.get("/actuator/health", Caller.MANAGER);
-      if (last.status() == 200) {
-        return;
-      }
-      Thread.sleep(100);
-    }
-    throw new AssertionError("not healthy 30 s after the database was back: "
-        + last.raw().body());
   }
 }
