@@ -44,11 +44,11 @@ class QueueBenchmarkTest {
   void decidesWithTheModelInForce() {
     Path data = TrainedData.copy();
     try {
-      // 24 tickets: each run a few seconds with the test's tiny model.
+      // 16 tickets: each run a few seconds with the test's tiny model.
       String out = run(0, "--data", data.toString(), "benchmark", "queue", "--db-url",
-          postgres.url(), "--db-user", "postgres", "--tickets", "24");
+          postgres.url(), "--db-user", "postgres", "--tickets", "16");
       assertTrue(out.contains("decided by model v-0001 of " + data), out);
-      assertEquals(2, out.split("decided once: 24\n", -1).length - 1, out);
+      assertEquals(2, out.split("decided once: 16\n", -1).length - 1, out);
       // Real decisions: the outcomes add up, and the decision itself takes time (the fixed
       // hand-off takes none).
       Matcher m = Pattern.compile("outcomes \\{([^}]*)\\}").matcher(out);
@@ -57,7 +57,7 @@ class QueueBenchmarkTest {
       for (String outcome : m.group(1).split(", ")) {
         total += Integer.parseInt(outcome.split("=")[1]);
       }
-      assertEquals(24, total, out);
+      assertEquals(16, total, out);
       Matcher p50 = Pattern.compile("decision p50 ([0-9.]+) ms").matcher(out);
       assertTrue(p50.find() && Double.parseDouble(p50.group(1)) > 0.5, out);
     } finally {

@@ -31,7 +31,7 @@ import org.springframework.jdbc.core.JdbcTemplate;
 class QueueDatabaseOutageTest {
   @RegisterExtension
   static final PostgresForClass postgres = PostgresForClass.restartable();
-  static final int TICKETS = 60;
+  static final int TICKETS = 40;
 
   @Test
   void anOutageMidBatchLosesNoTicketDecidesNoneTwiceAndTheWorkerRecoversByItself()
