@@ -164,7 +164,7 @@ final class DemoCommand implements Callable<Integer> {
           "demo held-out split", 0.95, dataDir.reports(), null,
           new Progress("evaluating", "tickets", System.err));
       EvaluationPrinter.print(out, evaluation);
-      EvaluationPrinter.applyThreshold(out, dataDir, active, evaluation,
+      EvaluationPrinter.applyThreshold(out, dataDir, java.util.List.of(), evaluation,
           "the demo: guaranteed threshold of its held-out evaluation at target precision 0.95");
     }
 

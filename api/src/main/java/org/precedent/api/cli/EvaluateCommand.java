@@ -51,8 +51,15 @@ final class EvaluateCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
 
-  @Parameters(paramLabel = "FILE", description = "Held-out tickets (CSV or JSON Lines).")
+  @Parameters(index = "0", paramLabel = "FILE",
+      description = "Held-out tickets (CSV or JSON Lines).")
   Path file;
+
+  @Parameters(index = "1..*", paramLabel = "SETTING", arity = "0..*",
+      description = "With --apply, after --: the database settings serve is given, as "
+          + "--name=value; the environment's SPRING_DATASOURCE_URL, _USERNAME and _PASSWORD are "
+          + "read as serve reads them.")
+  List<String> settings;
 
   @Mixin
   ColumnOptions columns;
@@ -69,8 +76,10 @@ final class EvaluateCommand implements Callable<Integer> {
       description = "An earlier report to show changes against.")
   Path compareTo;
 
-  @Option(names = "--apply", description = "Put the fused system's guaranteed threshold in force "
-      + "(recorded in the threshold audit; refused while the service runs on the data directory).")
+  @Option(names = "--apply", description = "Put the fused system's guaranteed threshold in force, "
+      + "recorded in the threshold audit of the service's database: the data directory's own "
+      + "(refused while the service runs on it), or the PostgreSQL the service is set to use, "
+      + "whose replicas then put it in force.")
   boolean apply;
 
   @Option(names = "--candidate", paramLabel = "VERSION",
@@ -85,6 +94,12 @@ final class EvaluateCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter w = spec.commandLine().getOut();
+    for (String setting : settings == null ? List.<String>of() : settings) {
+      if (!apply || !setting.startsWith("--") || setting.indexOf('=') < 0) {
+        throw new picocli.CommandLine.ParameterException(spec.commandLine(), "'" + setting
+            + "': after the file, only the service's settings for --apply, as --name=value");
+      }
+    }
     DataDir dataDir = new DataDir(parent.dataDir());
     EvaluationReport previous = compareTo == null ? null : ReportFiles.readJson(compareTo);
     // The file is read before the model is opened: a wrong file name is said at once.
@@ -101,7 +116,8 @@ final class EvaluateCommand implements Callable<Integer> {
           new Progress("evaluating", "tickets", System.err));
       EvaluationPrinter.print(w, result);
       if (apply) {
-        EvaluationPrinter.applyThreshold(w, dataDir, active, result, reason != null ? reason
+        EvaluationPrinter.applyThreshold(w, dataDir, settings == null ? List.of() : settings,
+            result, reason != null ? reason
             : "guaranteed threshold of the evaluation " + result.json() + " at target precision "
                 + target);
       }

@@ -2,12 +2,12 @@ package org.precedent.api.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.util.Locale;
 import java.util.List;
+import java.util.Locale;
 import org.precedent.api.answers.ApprovalCoverage;
 import org.precedent.api.answers.StoredAnswer;
+import org.precedent.api.system.ServiceDatabase;
 import org.precedent.api.threshold.ThresholdAudit;
-import org.precedent.engine.decide.InForce;
 import org.precedent.engine.decide.Thresholds;
 import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.HeldOutEvaluation;
@@ -25,16 +25,23 @@ final class EvaluationPrinter {
 
   private EvaluationPrinter() {}
 
-  /** Puts the fused system's guaranteed threshold in force, when there is one. */
-  static void applyThreshold(PrintWriter w, DataDir dataDir, InForce active,
+  /**
+   * Puts the fused system's guaranteed threshold in force, when there is one, keeping the
+   * per-category thresholds in force; recorded in the database the service on {@code dataDir}
+   * with {@code settings} would use.
+   */
+  static void applyThreshold(PrintWriter w, DataDir dataDir, List<String> settings,
       HeldOutEvaluation result, String reason) throws IOException {
     var threshold = result.guaranteedThreshold();
     if (threshold.isPresent()) {
-      ThresholdAudit.applyFromCommandLine(dataDir, new Thresholds(threshold.getAsDouble(),
-          active.thresholds().perCategory()), System.getProperty("user.name") + " (command line)",
-          reason);
+      ServiceDatabase db = ServiceDatabase.of(dataDir.root(), settings);
+      ThresholdAudit.applyFromCommandLine(dataDir, db, old -> new Thresholds(
+          threshold.getAsDouble(), old.perCategory()), System.getProperty("user.name")
+          + " (command line)", reason);
       w.println("threshold " + ThresholdDecimals.of(threshold.getAsDouble())
-          + " is now in force for automatic replies");
+          + " is now in force for automatic replies" + (db.isH2() ? ""
+          : " (recorded in " + db.shown() + "; running replicas put it in force within "
+          + "precedent.shared.poll-ms)"));
     } else {
       w.println("no threshold could be guaranteed; the threshold in force is unchanged");
     }

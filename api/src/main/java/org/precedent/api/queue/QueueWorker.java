@@ -28,8 +28,11 @@ import org.springframework.stereotype.Component;
  *
  * <p>Whatever one ticket's decision throws (a {@link StackOverflowError} included) is that
  * ticket's failure: it is recorded with the ticket and the worker goes on with the next. When the
- * database itself fails, the worker keeps the outcome it could not store, waits, and stores it
- * once the database works again, so it recovers without a restart.
+ * database itself fails (it stopped, or cannot write), that is nobody's ticket's fault and costs
+ * no try: the worker keeps the decision it could not store, or the claim it could not decide (the
+ * answer library is read from the database), waits, doubling the wait up to 5 s, and stores or
+ * decides it once the database works again, so it recovers without a restart. A decision kept
+ * over a long outage is still stored only if the claim is still this replica's.
  */
 @Component
 class QueueWorker implements SmartLifecycle {
@@ -47,10 +50,14 @@ class QueueWorker implements SmartLifecycle {
   // Claims whose failure could not be stored yet (the database failed), by ticket id: the
   // worker's own thread alone touches it.
   private final Map<String, Unfinished> unfinished = new LinkedHashMap<>();
+  // A decision made whose storing failed because the database did: the worker's thread alone.
+  private Outcome pending;
   private volatile boolean running;
   private volatile Thread thread;
 
   private record Unfinished(TicketQueue.Claimed claim, String reason) {}
+
+  private record Outcome(TicketQueue.Claimed claim, DecisionView decision) {}
 
   QueueWorker(TicketQueue queue, Decider decider, AnswerGate answers,
       MeterRegistry meters,
@@ -95,14 +102,19 @@ class QueueWorker implements SmartLifecycle {
   private void run() {
     boolean failing = false;
     long pause = pollMs;
+    long failingSince = 0;
+    int tries = 0;
     while (running) {
       try {
+        storePending();
         storeUnfinished();
         if (claimed.isEmpty()) {
           claimed.addAll(queue.claimBatch(batch));
         }
         if (failing) {
-          LOG.info("queue worker: the database works again");
+          LOG.info("queue worker: the database works again after {} ms and {} tries; going on "
+              + "with {} claimed tickets", (System.nanoTime() - failingSince) / 1_000_000, tries,
+              claimed.size());
           failing = false;
           pause = pollMs;
         }
@@ -125,11 +137,15 @@ class QueueWorker implements SmartLifecycle {
         // The database is unavailable (or worse); claims and unstored outcomes stay and are
         // retried after a pause. The thread must not end here: nothing else would decide tickets.
         if (!failing) {
-          LOG.warn("queue worker: {}; trying again in {} ms, then less and less often",
-              StorageFailures.isStorageFailure(e) ? "storage failed: "
-                  + StorageFailures.describe(e) : e.toString(), pollMs);
+          LOG.warn("queue worker: {}; trying again in {} ms, then less and less often (at "
+              + "least every {} ms)", StorageFailures.isStorageFailure(e) ? "storage failed: "
+                  + StorageFailures.describe(e) : e.toString(), pause,
+              Math.max(pollMs, MAX_PAUSE_MS));
           failing = true;
+          failingSince = System.nanoTime();
+          tries = 0;
         }
+        tries++;
         sleepQuietly(pause);
         // Each try while storage fails opens the database anew; a few a minute are enough.
         pause = Math.min(2 * pause, Math.max(pollMs, MAX_PAUSE_MS));
@@ -158,21 +174,54 @@ class QueueWorker implements SmartLifecycle {
       d = answers.apply(decider.decideCleaned(c.question(), c.category(), c.fields(), 3,
           "queue"), c.fields());
     } catch (RuntimeException | Error e) {
+      if (StorageFailures.isStorageFailure(e)) {
+        // The database failed, not the ticket: decided again, on the same claim and try, once
+        // it works.
+        claimed.addFirst(c);
+        throw e;
+      }
       String reason = describe(e);
       LOG.warn("ticket {}: decision failed (try {} of {}): {}", c.ticketId(), c.attempt(),
           TicketQueue.MAX_ATTEMPTS, reason);
       fail(c, reason);
       return;
     }
+    pending = new Outcome(c, d);
+    storePending();
+  }
+
+  /**
+   * Stores the decision made last, if it is not stored yet. When the database fails this throws
+   * and the decision stays, to be stored on the next try; any other failure to store it is the
+   * ticket's failed try.
+   */
+  private void storePending() {
+    Outcome o = pending;
+    if (o == null) {
+      return;
+    }
+    TicketQueue.Claimed c = o.claim();
+    boolean stored;
     try {
-      if (!queue.decided(c, d)) {
-        LOG.warn("ticket {}: decision refused, the claim (replica {}, try {}) is no longer this "
-            + "replica's: its lease ended and another replica claimed it", c.ticketId(),
-            queue.owner(), c.attempt());
-      }
+      stored = queue.decided(c, o.decision());
     } catch (RuntimeException e) {
-      fail(c, "its decision could not be stored: " + (StorageFailures.isStorageFailure(e)
-          ? StorageFailures.describe(e) : describe(e)));
+      if (StorageFailures.isStorageFailure(e)) {
+        throw e;
+      }
+      pending = null;
+      String reason = "its decision could not be stored: " + describe(e);
+      LOG.warn("ticket {}: {} (try {} of {})", c.ticketId(), reason, c.attempt(),
+          TicketQueue.MAX_ATTEMPTS);
+      fail(c, reason);
+      return;
+    }
+    pending = null;
+    if (!stored) {
+      // Also when the database committed the decision and failed before saying so: the ticket is
+      // then decided already, and this refusal keeps it decided once.
+      LOG.warn("ticket {}: decision refused, the claim (replica {}, try {}) is no longer this "
+          + "replica's: its lease ended and another replica claimed it, or it is decided",
+          c.ticketId(), queue.owner(), c.attempt());
     }
   }
 

@@ -146,10 +146,7 @@ class TicketQueue {
   List<Claimed> claimBatch(int n) {
     return tx.execute(status -> {
       Instant now = databaseNow();
-      db.update("UPDATE queue_ticket SET status = ?, lease_until = NULL, failure = ? "
-          + "WHERE status = ? AND lease_until < ? AND attempts >= ?", TicketState.FAILED.name(),
-          "the replica deciding it stopped before its lease ended, " + MAX_ATTEMPTS + " times",
-          TicketState.DECIDING.name(), Timestamp.from(now), MAX_ATTEMPTS);
+      failEndedLastTries(now);
       long deadline = System.nanoTime() + lease.toNanos();
       List<Claimed> rows = db.query("SELECT seq, ticket_id, question, category, attempts, "
           + "fields FROM queue_ticket WHERE (status = ? OR (status = ? AND lease_until < ?)) "
@@ -166,6 +163,28 @@ class TicketQueue {
       }
       return rows;
     });
+  }
+
+  /**
+   * Marks failed the claims whose lease ended before {@code now} on their last try (the replica
+   * deciding them stopped, {@link #MAX_ATTEMPTS} times), in the caller's transaction; returns how
+   * many. The rows are locked with {@code FOR UPDATE SKIP LOCKED} before they are written: a plain
+   * {@code UPDATE} over them would wait on any row another replica holds, and two replicas each
+   * holding a row the other's update wants would deadlock (PostgreSQL then aborts one). A row held
+   * elsewhere is passed over; the next claim, here or on another replica, fails it.
+   */
+  int failEndedLastTries(Instant now) {
+    List<Long> ended = db.queryForList("SELECT seq FROM queue_ticket WHERE status = ? "
+        + "AND lease_until < ? AND attempts >= ? ORDER BY seq FOR UPDATE SKIP LOCKED",
+        Long.class, TicketState.DECIDING.name(), Timestamp.from(now), MAX_ATTEMPTS);
+    if (ended.isEmpty()) {
+      return 0;
+    }
+    db.batchUpdate("UPDATE queue_ticket SET status = ?, lease_until = NULL, failure = ? "
+        + "WHERE seq = ? AND status = ?", ended.stream().map(seq -> new Object[] {
+            TicketState.FAILED.name(), "the replica deciding it stopped before its lease ended, "
+            + MAX_ATTEMPTS + " times", seq, TicketState.DECIDING.name()}).toList());
+    return ended.size();
   }
 
   /** Claims the oldest queued ticket that has tries left, if there is one. */
@@ -249,7 +268,7 @@ class TicketQueue {
   }
 
   /** The database's clock: every replica's leases are measured by the one clock. */
-  private Instant databaseNow() {
+  Instant databaseNow() {
     OffsetDateTime now = db.queryForObject("SELECT CURRENT_TIMESTAMP",
         (rs, i) -> rs.getObject(1, OffsetDateTime.class));
     return now == null ? Instant.now() : now.toInstant();

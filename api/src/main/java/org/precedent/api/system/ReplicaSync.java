@@ -94,6 +94,14 @@ public class ReplicaSync implements SmartLifecycle {
     publish(db, MODEL, version);
   }
 
+  /** The thresholds the replicas share, as {@code db} holds them; empty before the first start. */
+  public static java.util.Optional<Thresholds> sharedThresholds(JdbcTemplate db) {
+    List<String> rows = db.queryForList("SELECT content FROM shared_in_force WHERE name = ?",
+        String.class, THRESHOLDS);
+    return rows.isEmpty() ? java.util.Optional.empty()
+        : java.util.Optional.of(read(new ObjectMapper(), rows.get(0)));
+  }
+
   private static long publish(JdbcTemplate db, String name, String content) {
     Timestamp now = Timestamp.from(Instant.now());
     String update = "UPDATE shared_in_force SET content = ?, revision = revision + 1, "
@@ -217,6 +225,10 @@ public class ReplicaSync implements SmartLifecycle {
   }
 
   private Thresholds read(String content) {
+    return read(json, content);
+  }
+
+  private static Thresholds read(ObjectMapper json, String content) {
     try {
       return json.readValue(content, Thresholds.class);
     } catch (JsonProcessingException e) {

@@ -5,6 +5,8 @@ import java.sql.SQLException;
 import java.util.Set;
 import org.springframework.dao.DataAccessResourceFailureException;
 import org.springframework.dao.TransientDataAccessResourceException;
+import org.springframework.transaction.CannotCreateTransactionException;
+import org.springframework.transaction.TransactionSystemException;
 
 /**
  * Tells a failure of the service's storage (the disk is full, the database file cannot be written,
@@ -32,6 +34,15 @@ public final class StorageFailures {
       if (t instanceof SQLException s && (brokenConnection(s) || outOfResources(s))) {
         return true;
       }
+      if (t instanceof CannotCreateTransactionException) {
+        return true; // no connection to begin a transaction on
+      }
+      // A rollback that failed after the statement did: the pool's "Connection is closed" (no
+      // SQL state) is its cause, and the database's own error is the application's exception.
+      if (t instanceof TransactionSystemException s && s.getApplicationException() != null
+          && isStorageFailure(s.getApplicationException())) {
+        return true;
+      }
     }
     return false;
   }
@@ -48,6 +59,12 @@ public final class StorageFailures {
     String state = s.getSQLState();
     if (state != null && state.startsWith("08")) {
       return true; // SQL standard class 08: connection exception
+    }
+    if (state != null && state.startsWith("57P")) {
+      // PostgreSQL's operator intervention on the server as a whole (its errcodes appendix):
+      // admin_shutdown, crash_shutdown, cannot_connect_now (starting up), database_dropped,
+      // idle_session_timeout. Such a connection is ended; 57014 (a cancelled query) is not.
+      return true;
     }
     for (Throwable t = s.getCause(); t != null; t = t.getCause() == t ? null : t.getCause()) {
       if (t instanceof IOException) {

@@ -5,7 +5,7 @@
  * org.precedent.api.system.Credentials}, {@link org.precedent.api.system.SignInLimiter}), the model in
  * force and its atomic swap ({@link org.precedent.api.system.ModelHolder} and its leases), the decision
  * slots that bound concurrent work, the thresholds and model version shared by replicas on one
- * database ({@link org.precedent.api.system.ReplicaSync}), request limits and strict JSON, every error as an RFC 9457 problem
+ * database ({@link org.precedent.api.system.ReplicaSync}), the database the service is set to use as the command line finds it ({@link org.precedent.api.system.ServiceDatabase}), request limits and strict JSON, every error as an RFC 9457 problem
  * ({@link org.precedent.api.system.ErrorAdvice}), and storage failures and health. It depends on
  * {@code engine.decide}, {@code engine.rerank} and {@code rerank.store}, {@code knowledge.store},
  * {@code knowledge.io}, and on Spring Boot, Spring Security, HikariCP, Micrometer, springdoc and

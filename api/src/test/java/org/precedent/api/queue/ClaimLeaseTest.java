@@ -194,6 +194,90 @@ class ClaimLeaseTest {
         Integer.class));
   }
 
+  /**
+   * Two replicas failing ended last-try claims at once, from two connections, each holding a row
+   * the other's step reaches: with {@code FOR UPDATE SKIP LOCKED} neither waits on the other, and
+   * between them every such claim is failed once. (A plain {@code UPDATE} here waits on the held
+   * row until the other transaction ends, and once the other's step reaches the first's rows
+   * each waits on the other: PostgreSQL reports a deadlock.)
+   */
+  @org.junit.jupiter.api.Test
+  void twoReplicasFailingEndedClaimsAtOnceNeitherWaitNorDeadlock() throws Exception {
+    DataSource db = emptied(postgres);
+    TicketQueue setup = replica(db, "replica-setup", Duration.ofSeconds(30));
+    int rows = 40;
+    for (int i = 0; i < rows; i++) {
+      setup.submit(ticket(String.format("X-%03d", i)), "queue");
+    }
+    // Every ticket claimed for the last time by a replica that stopped a minute ago.
+    new JdbcTemplate(db).update("UPDATE queue_ticket SET status = 'DECIDING', attempts = ?, "
+        + "claim_owner = 'replica-gone', lease_until = CURRENT_TIMESTAMP - INTERVAL '1 minute'",
+        TicketQueue.MAX_ATTEMPTS);
+    java.util.concurrent.ExecutorService threads =
+        java.util.concurrent.Executors.newFixedThreadPool(2);
+    try (java.sql.Connection first = db.getConnection();
+        java.sql.Connection second = db.getConnection()) {
+      first.setAutoCommit(false);
+      second.setAutoCommit(false);
+      TicketQueue one = onConnection(first, "replica-one");
+      TicketQueue two = onConnection(second, "replica-two");
+      // The second replica's transaction already holds the newest of those rows.
+      new JdbcTemplate(new org.springframework.jdbc.datasource.SingleConnectionDataSource(second,
+          true)).queryForList("SELECT seq FROM queue_ticket WHERE ticket_id = ? FOR UPDATE",
+          Long.class, String.format("X-%03d", rows - 1));
+      long start = System.nanoTime();
+      var byOne = threads.submit(() -> one.failEndedLastTries(one.databaseNow()));
+      // The first step has the other rows locked (or is waiting on the held one) before the
+      // second begins.
+      int firstFailed = byOne.get(10, java.util.concurrent.TimeUnit.SECONDS);
+      long firstMs = (System.nanoTime() - start) / 1_000_000;
+      var byTwo = threads.submit(() -> two.failEndedLastTries(two.databaseNow()));
+      int secondFailed = byTwo.get(10, java.util.concurrent.TimeUnit.SECONDS);
+      first.commit();
+      second.commit();
+      assertEquals(rows - 1, firstFailed, "all but the row the other replica holds");
+      assertEquals(1, secondFailed, "the row it held; the rest were the first's");
+      // PostgreSQL's deadlock_timeout is 1 s (its documented default): a wait on the held row
+      // would last at least that long.
+      assertTrue(firstMs < 1000, "the first step waited " + firstMs + " ms on a held row");
+    } finally {
+      threads.shutdownNow();
+    }
+    assertEquals(rows, new JdbcTemplate(db).queryForObject("SELECT COUNT(*) FROM queue_ticket "
+        + "WHERE status = 'FAILED' AND lease_until IS NULL", Integer.class));
+    // And at once, from two connections started together, over rows neither holds.
+    new JdbcTemplate(db).update("UPDATE queue_ticket SET status = 'DECIDING', "
+        + "lease_until = CURRENT_TIMESTAMP - INTERVAL '1 minute'");
+    java.util.concurrent.CountDownLatch go = new java.util.concurrent.CountDownLatch(1);
+    java.util.concurrent.ExecutorService both =
+        java.util.concurrent.Executors.newFixedThreadPool(2);
+    List<java.util.concurrent.Future<Integer>> steps = new java.util.ArrayList<>();
+    for (String id : List.of("replica-one", "replica-two")) {
+      TicketQueue q = replica(db, id, Duration.ofSeconds(30));
+      steps.add(both.submit(() -> {
+        go.await();
+        // Through claimBatch, as the worker runs it: the step, then the claim, one transaction.
+        assertTrue(q.claimBatch(8).isEmpty(), "nothing left to claim");
+        return 0;
+      }));
+    }
+    go.countDown();
+    for (var f : steps) {
+      f.get(10, java.util.concurrent.TimeUnit.SECONDS);
+    }
+    both.shutdown();
+    assertEquals(rows, new JdbcTemplate(db).queryForObject("SELECT COUNT(*) FROM queue_ticket "
+        + "WHERE status = 'FAILED' AND lease_until IS NULL", Integer.class));
+  }
+
+  /** A replica's queue over one connection, whose transaction the test commits. */
+  private static TicketQueue onConnection(java.sql.Connection c, String id) {
+    var single = new org.springframework.jdbc.datasource.SingleConnectionDataSource(c, true);
+    return new TicketQueue(new JdbcTemplate(single),
+        new TransactionTemplate(new DataSourceTransactionManager(single)), new ObjectMapper(), id,
+        Duration.ofSeconds(30));
+  }
+
   @org.junit.jupiter.api.Test
   void aReplicaIdIsCheckedOrGenerated() {
     assertEquals("replica-1", ReplicaId.orGenerated(" replica-1 "));

@@ -81,7 +81,7 @@ class FullDiskTest {
       assertEquals("DOWN", down.json().get("components").get("db").get("status").asText());
 
       Files.delete(service.resolve("filler"));
-      awaitHealthy(http);
+      http.awaitHealthy("space was freed");
       submit(http, "R-1", "Can I have a second green bin?", acknowledged);
       assertTrue(acknowledged.contains("R-1"), "accepted again once space is freed");
       for (String id : acknowledged) {
@@ -119,17 +119,6 @@ class FullDiskTest {
     }
   }
 
-  private static void awaitHealthy(Http http) throws InterruptedException {
-    Reply last = null;
-    for (int i = 0; i < 300; i++) {
-      last = http.get("/actuator/health", Caller.MANAGER);
-      if (last.status() == 200) {
-        return;
-      }
-      Thread.sleep(100);
-    }
-    throw new AssertionError("not healthy 30 s after space was freed: " + last.raw().body());
-  }
 
   private static JsonNode await(Http http, String id, String state) throws InterruptedException {
     Reply last = null;

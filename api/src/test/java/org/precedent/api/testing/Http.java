@@ -75,6 +75,22 @@ public final class Http {
         .method(method, HttpRequest.BodyPublishers.ofString(text)).build());
   }
 
+  /**
+   * Waits until {@code /actuator/health} answers 200 (every part UP), at most 30 s; {@code after}
+   * names what the service recovers from, for the failure's message.
+   */
+  public void awaitHealthy(String after) throws InterruptedException {
+    Reply last = null;
+    for (int i = 0; i < 300; i++) {
+      last = get("/actuator/health", Caller.MANAGER);
+      if (last.status() == 200) {
+        return;
+      }
+      Thread.sleep(100);
+    }
+    throw new AssertionError("not healthy 30 s after " + after + ": " + last.raw().body());
+  }
+
   private HttpRequest.Builder builder(String path, Caller caller) {
     HttpRequest.Builder b = HttpRequest.newBuilder(URI.create(base + path))
         .timeout(Duration.ofSeconds(60));
