@@ -300,12 +300,27 @@ public final class Retriever implements Closeable {
     return new Proximity(nearest, votes.getOrDefault(group, 0) / (double) NEIGHBOURS);
   }
 
-  private static double dot(float[] a, float[] b) {
-    double s = 0;
-    for (int i = 0; i < a.length; i++) {
-      s += a[i] * b[i];
+  /**
+   * The dot product, in four running sums: a group's nearest question is a scan over all its
+   * tickets' vectors, a tenth of a decision's time in one sum (the next addition waits for the
+   * last), less than half that in four.
+   */
+  static double dot(float[] a, float[] b) {
+    double s0 = 0;
+    double s1 = 0;
+    double s2 = 0;
+    double s3 = 0;
+    int i = 0;
+    for (int n = a.length - 3; i < n; i += 4) {
+      s0 += a[i] * b[i];
+      s1 += a[i + 1] * b[i + 1];
+      s2 += a[i + 2] * b[i + 2];
+      s3 += a[i + 3] * b[i + 3];
     }
-    return s;
+    for (; i < a.length; i++) {
+      s0 += a[i] * b[i];
+    }
+    return (s0 + s1) + (s2 + s3);
   }
 
   /**
