@@ -3,8 +3,10 @@ package org.precedent.api.cli;
 import java.io.BufferedReader;
 import java.io.InputStreamReader;
 import java.io.PrintWriter;
+import java.lang.management.ManagementFactory;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
+import java.util.Locale;
 import java.util.concurrent.Callable;
 import java.util.function.Consumer;
 import org.precedent.engine.decide.InForce;
@@ -43,6 +45,11 @@ final class AskCommand implements Callable<Integer> {
       description = "The ticket's category, if known (category thresholds and rules apply).")
   String category;
 
+  @Option(names = "--timings",
+      description = "Also print where the time went, to standard error: the JVM's start, opening "
+          + "each part, loading the reranker (only when a question needs it) and each decision.")
+  boolean timings;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -57,11 +64,39 @@ final class AskCommand implements Callable<Integer> {
           + "('precedent train' adds the reranker, confidence and the reply-or-hand-off decision)");
       return retrievalOnly(dataDir, out);
     }
-    NumericLibrary.announce(spec.commandLine().getErr());
-    try (InForce active = InForce.open(dataDir)) {
+    long started = System.nanoTime();
+    // The reranker loads only for a question the faster legs disagree on: a one-question command
+    // then waits for neither the numeric library nor the network.
+    try (InForce active = InForce.openRerankerOnFirstUse(dataDir)) {
+      long opened = System.nanoTime();
       Pipeline pipeline = active.pipeline();
       DecisionPrinter printer = new DecisionPrinter(out, candidates);
-      return eachQuestion(out, q -> printer.print(pipeline.decide(q, category), active.version()));
+      PrintWriter err = spec.commandLine().getErr();
+      if (timings) {
+        InForce.OpenTimes t = active.openTimes();
+        err.printf(Locale.ROOT, "timings: JVM start to this command %.2f s; opened in %.2f s "
+                + "(knowledge %.2f s, index %.2f s, model files %.2f s, dense leg %.2f s)%n",
+            (System.currentTimeMillis() - ManagementFactory.getRuntimeMXBean().getStartTime()
+                - (opened - started) / 1_000_000) / 1e3, (opened - started) / 1e9,
+            t.knowledge() / 1e3, t.index() / 1e3, t.model() / 1e3, t.dense() / 1e3);
+      }
+      return eachQuestion(out, q -> {
+        boolean hadReranker = active.rerankerLoad().isPresent();
+        long t0 = System.nanoTime();
+        var decision = pipeline.decide(q, category);
+        long took = System.nanoTime() - t0;
+        printer.print(decision, active.version());
+        if (timings) {
+          var load = active.rerankerLoad();
+          err.printf(Locale.ROOT, "timings: decision %.1f ms%s; since the JVM started %.2f s%n",
+              took / 1e6, hadReranker ? "" : load.isPresent() ? String.format(Locale.ROOT,
+                  " (of which loading the reranker %.2f s)", load.getAsLong() / 1e3)
+                  : " (reranker not loaded: the faster legs agreed)",
+              (System.currentTimeMillis()
+                  - ManagementFactory.getRuntimeMXBean().getStartTime()) / 1e3);
+          err.flush();
+        }
+      });
     }
   }
 

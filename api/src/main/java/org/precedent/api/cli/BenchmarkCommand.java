@@ -8,7 +8,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "benchmark", mixinStandardHelpOptions = true,
     description = "Measures Precedent's speed and prints the figures.",
     subcommands = {RetrievalBenchmark.class, RerankerBenchmarkCommand.class,
-        EncoderBenchmark.class,
+        EncoderBenchmark.class, DecisionBenchmark.class,
         ClincBenchmark.class, ServiceBenchmark.class, QueueBenchmark.class, FiguresCommand.class})
 final class BenchmarkCommand implements Callable<Integer> {
   @picocli.CommandLine.ParentCommand

@@ -56,10 +56,11 @@ final class DecisionPrinter {
         d.candidates().size()));
     for (CandidateView c : shown) {
       // The candidates' own scores order them; only the first has a calibrated chance (above).
-      out.printf(Locale.ROOT, "%n%d. answer %s%s  BM25 %.2f (rank %d)  reranker %.1f "
-              + "(%.2f per token)  used %d times%n", c.rank(), c.answerGroup(),
-          c.rank() == 1 ? "  (the best answer)" : "", c.bm25(), c.bm25Rank(), c.reranker(),
-          c.rerankerPerToken(), c.usedTimes());
+      out.printf(Locale.ROOT, "%n%d. answer %s%s  BM25 %.2f (rank %d)  %s  used %d times%n",
+          c.rank(), c.answerGroup(), c.rank() == 1 ? "  (the best answer)" : "", c.bm25(),
+          c.bm25Rank(), c.reranker() == null ? "reranker not run"
+              : String.format(Locale.ROOT, "reranker %.1f (%.2f per token)", c.reranker(),
+                  c.rerankerPerToken()), c.usedTimes());
       out.println("   " + Text.abbreviate(c.answer(), 160));
       for (EvidenceView e : c.evidence()) {
         out.println(RetrievalPrinter.evidenceLine(e.ticketId(), e.score(),

@@ -100,14 +100,18 @@ final class EvaluationPrinter {
     long inScope = result.inScope();
     w.printf(Locale.ROOT, "%d held-out tickets: %d with a known answer, %d out of scope%n",
         all, inScope, all - inScope);
-    w.printf(Locale.ROOT, "%-16s %7s %7s %7s %7s %7s %7s %9s%n", "system", "top-1", "MRR",
-        "R@10", "ECE", "Brier", "AUROC", "cov@95%");
+    int width = report.systems().stream().mapToInt(s -> s.name().length()).max().orElse(6);
+    String label = "%-" + width + "s";
+    w.printf(Locale.ROOT, label + " %7s %7s %7s %7s %7s %7s %9s %9s%n", "system", "top-1", "MRR",
+        "R@10", "ECE", "Brier", "AUROC", "cov@95%", "reranked");
     for (SystemReport s : report.systems()) {
       var m = s.measures();
-      w.printf(Locale.ROOT, "%-16s %7.3f %7.3f %7.3f %7.3f %7.3f %7.3f %9.3f%n", s.name(), m.top1(),
-          m.meanReciprocalRank(), m.recallAt10(), m.expectedCalibrationError(), m.brierScore(),
-          m.auroc(), m.coverageAt95());
+      w.printf(Locale.ROOT, label + " %7.3f %7.3f %7.3f %7.3f %7.3f %7.3f %9.3f %8.0f%%%n", s.name(),
+          m.top1(), m.meanReciprocalRank(), m.recallAt10(), m.expectedCalibrationError(),
+          m.brierScore(), m.auroc(), m.coverageAt95(), 100 * s.rerankerRuns());
     }
+    w.println("(the last system decides; 'reranked' is the share of tickets it ran the reranker "
+        + "for, most of a decision's time)");
     w.println(HeldOutEvaluation.fused(report).recommendation().explanation());
     w.printf(Locale.ROOT, "%d of these tickets fall under a safety rule or a people-only category: in "
         + "service they are handed off whatever the confidence (the figures above measure the model "

@@ -11,19 +11,20 @@ import org.precedent.knowledge.retrieve.Retrieval;
  * and evaluation.
  *
  * @param retrieval what the candidate source found
- * @param scores    the scorer's scores, in the order of {@code retrieval.candidates()}
+ * @param scores    the scorer's scores, in the order of {@code retrieval.candidates()}; null when
+ *                  the reranker was not run for this question (see {@link #reranked()})
  * @param posterior the dense leg's classifier probability of each candidate's group, same order
  *                  (all 0 without a dense leg)
  */
 public record CandidateScoring(Retrieval retrieval, List<AnswerScore> scores,
     List<Double> posterior) {
   public CandidateScoring {
-    scores = List.copyOf(scores);
+    scores = scores == null ? null : List.copyOf(scores);
     posterior = List.copyOf(posterior);
     int n = retrieval.candidates().size();
-    if (scores.size() != n || posterior.size() != n) {
-      throw new IllegalArgumentException(scores.size() + " scores and " + posterior.size()
-          + " probabilities for " + n + " candidates");
+    if ((scores != null && scores.size() != n) || posterior.size() != n) {
+      throw new IllegalArgumentException((scores == null ? "no" : scores.size()) + " scores and "
+          + posterior.size() + " probabilities for " + n + " candidates");
     }
   }
 
@@ -34,5 +35,21 @@ public record CandidateScoring(Retrieval retrieval, List<AnswerScore> scores,
 
   public List<Candidate> candidates() {
     return retrieval.candidates();
+  }
+
+  /** Whether the reranker scored the candidates. */
+  public boolean reranked() {
+    return scores != null;
+  }
+
+  /** The same candidates with the reranker's scores added. */
+  public CandidateScoring withScores(List<AnswerScore> reranker) {
+    return new CandidateScoring(retrieval, reranker, posterior);
+  }
+
+  /** Whether the question, or the text the reranker read of it, was cut to fit. */
+  public boolean truncated() {
+    return retrieval.truncated()
+        || (scores != null && scores.stream().anyMatch(AnswerScore::questionTruncated));
   }
 }

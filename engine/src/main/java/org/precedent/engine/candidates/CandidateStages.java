@@ -23,10 +23,24 @@ public record CandidateStages(CandidateSource source, CandidateScorer scorer,
    * @param excludedTicket a stored ticket to leave out (when asking its own question), or null
    */
   public CandidateScoring score(String question, String excludedTicket) {
+    return rerank(question, retrieve(question, excludedTicket));
+  }
+
+  /**
+   * The first stage and the dense leg's classifier, without the reranker: what a decision that
+   * runs the reranker only where the legs disagree looks at first.
+   */
+  public CandidateScoring retrieve(String question, String excludedTicket) {
     Retrieval retrieval = source.retrieve(question, excludedTicket);
     float[] vector = retrieval.vector();
-    return new CandidateScoring(retrieval, scorer.score(question, retrieval.candidates()),
+    return new CandidateScoring(retrieval, null,
         vector == null ? GroupPosterior.NONE.probabilities(null, retrieval.candidates())
             : posterior.probabilities(vector, retrieval.candidates()));
+  }
+
+  /** Adds the reranker's scores to what {@link #retrieve} found (the same when already there). */
+  public CandidateScoring rerank(String question, CandidateScoring retrieved) {
+    return retrieved.reranked() ? retrieved
+        : retrieved.withScores(scorer.score(question, retrieved.candidates()));
   }
 }

@@ -1,5 +1,6 @@
 package org.precedent.engine.decide;
 
+import java.util.function.Supplier;
 import org.precedent.engine.candidates.Bm25Candidates;
 import org.precedent.engine.candidates.CandidateStages;
 import org.precedent.engine.candidates.HybridCandidates;
@@ -30,6 +31,12 @@ public final class Assembly {
    * @param dense the dense leg, or null for BM25 only
    */
   public static CandidateStages candidates(Retriever retriever, Scorer reranker, DenseLeg dense) {
+    return candidates(retriever, () -> reranker, dense);
+  }
+
+  /** As {@link #candidates(Retriever, Scorer, DenseLeg)}, the reranker asked for when needed. */
+  static CandidateStages candidates(Retriever retriever, Supplier<Scorer> reranker,
+      DenseLeg dense) {
     if (dense == null) {
       return new CandidateStages(new Bm25Candidates(retriever), new RerankerScores(reranker));
     }
@@ -40,22 +47,31 @@ public final class Assembly {
   /** Every stage, BM25 only, with a fitted fusion model, a safety policy and the thresholds. */
   public static Pipeline pipeline(Retriever retriever, Scorer reranker, FusionModel fusion,
       SafetyPolicy safety, Thresholds thresholds) {
-    return pipeline(retriever, reranker, null, fusion, safety, thresholds);
+    return pipeline(retriever, reranker, null, fusion, safety, thresholds,
+        RerankerUse.fromSetting());
   }
 
   /**
    * Every stage, with a fitted fusion model, a safety policy and the thresholds in force.
    *
-   * @param dense the dense leg, or null for BM25 only; present exactly when fusion learnt from it
+   * @param dense       the dense leg, or null for BM25 only; present exactly when fusion learnt
+   *                    from it
+   * @param rerankerUse when decisions run the reranker
    */
   public static Pipeline pipeline(Retriever retriever, Scorer reranker, DenseLeg dense,
-      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds) {
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds, RerankerUse rerankerUse) {
+    return pipeline(retriever, () -> reranker, dense, fusion, safety, thresholds, rerankerUse);
+  }
+
+  /** As above, the reranker asked for only when a decision needs it. */
+  static Pipeline pipeline(Retriever retriever, Supplier<Scorer> reranker, DenseLeg dense,
+      FusionModel fusion, SafetyPolicy safety, Thresholds thresholds, RerankerUse rerankerUse) {
     if (fusion.dense() != (dense != null)) {
       throw new IllegalArgumentException(fusion.dense()
           ? "the fusion model learnt from the dense leg, so decisions need it"
           : "the fusion model learnt without the dense leg, so decisions must not use it");
     }
     return new Pipeline(candidates(retriever, reranker, dense), new Ranker(fusion), safety,
-        thresholds);
+        thresholds, rerankerUse);
   }
 }

@@ -4,6 +4,7 @@ import java.io.Closeable;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.concurrent.CompletableFuture;
 import org.precedent.engine.dense.AnswerClassifier;
 import org.precedent.engine.dense.DenseLeg;
 import org.precedent.engine.fusion.FusionModel;
@@ -32,16 +33,31 @@ public final class InForce implements Closeable {
   private final Knowledge knowledge;
   private final Retriever retriever;
   private final String version;
-  private final Scorer scorer;
+  private final DeferredScorer scorer;
   private final FusionModel fusion;
   private final DenseLeg dense;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
   private final SlotFields slotFields;
 
-  private InForce(Knowledge knowledge, Retriever retriever, String version, Scorer scorer,
+  private final OpenTimes openTimes;
+
+  /**
+   * How long opening took, part by part, in milliseconds: where a one-question command's wait
+   * goes.
+   *
+   * @param knowledge the stored generation (groups, manifest)
+   * @param index     the Lucene index and the per-ticket tables held in memory
+   * @param model     the model version's files checked against its manifest, and fusion read
+   * @param dense     the dense leg: the sentence encoder's session and the answer classifier,
+   *                  made on a thread of its own beside the index (so not added to the others)
+   */
+  public record OpenTimes(long knowledge, long index, long model, long dense) {}
+
+  private InForce(Knowledge knowledge, Retriever retriever, String version, DeferredScorer scorer,
       FusionModel fusion, DenseLeg dense, SafetyPolicy safety, Thresholds thresholds,
-      SlotFields slotFields) {
+      SlotFields slotFields, OpenTimes openTimes) {
+    this.openTimes = openTimes;
     this.knowledge = knowledge;
     this.retriever = retriever;
     this.version = version;
@@ -64,29 +80,127 @@ public final class InForce implements Closeable {
    * measures a candidate on the same held-out tickets as the version in force.
    */
   public static InForce open(DataDir dir, String modelVersion) throws IOException {
+    return open(dir, modelVersion, false);
+  }
+
+  /**
+   * Opens what is in force but loads the reranker's network only when a decision first needs it
+   * (checking its files against the manifest again then): for a command that asks one question,
+   * which the faster legs often settle alone. A network that cannot be read then fails that
+   * decision, not the opening.
+   */
+  public static InForce openRerankerOnFirstUse(DataDir dir) throws IOException {
+    return open(dir, null, true);
+  }
+
+  private static InForce open(DataDir dir, String modelVersion, boolean deferReranker)
+      throws IOException {
+    long t0 = System.nanoTime();
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
-    Retriever retriever = Retriever.open(knowledge);
+    long t1 = System.nanoTime();
+    ModelStore store = new ModelStore(dir.models());
+    String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
+        () -> new IOException("no trained model in " + dir.root()
+            + " yet: run 'precedent train' first"));
+    // Every file of the version is checked before any is read.
+    store.verify(version);
+    FusionModel fusion = FusionModel.load(store.directory(version));
+    long t2 = System.nanoTime();
+    // The encoder's session (native code, most of an opening's time) is made beside the index.
+    long[] denseNanos = new long[1];
+    CompletableFuture<DenseLeg> opening = new CompletableFuture<>();
+    Thread denseThread = new Thread(() -> {
+      long d0 = System.nanoTime();
+      try {
+        opening.complete(openDenseLeg(knowledge, store.directory(version), fusion));
+      } catch (Throwable e) {
+        opening.completeExceptionally(e);
+      }
+      denseNanos[0] = System.nanoTime() - d0;
+    }, "precedent-open-dense-leg");
+    denseThread.setDaemon(true);
+    denseThread.start();
+    Retriever retriever = null;
     DenseLeg dense = null;
     try {
-      ModelStore store = new ModelStore(dir.models());
-      String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
-          () -> new IOException("no trained model in " + dir.root()
-              + " yet: run 'precedent train' first"));
-      RerankerModel model = store.load(version);
-      FusionModel fusion = FusionModel.load(store.directory(version));
-      dense = openDenseLeg(knowledge, store.directory(version), fusion);
+      retriever = Retriever.open(knowledge);
+      long t3 = System.nanoTime();
+      DeferredScorer scorer;
+      if (deferReranker) {
+        scorer = new DeferredScorer(() -> new Scorer(store.load(version)));
+      } else {
+        long l0 = System.nanoTime();
+        Scorer loaded = new Scorer(store.load(version));
+        scorer = new DeferredScorer(loaded, System.nanoTime() - l0);
+      }
+      dense = joined(opening);
+      denseThread.join();
       Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
-      return new InForce(knowledge, retriever, version, new Scorer(model), fusion, dense, safety,
-          readThresholds(dir), SlotFields.read(dir.slotFields()));
-    } catch (IOException | RuntimeException e) {
+      return new InForce(knowledge, retriever, version, scorer, fusion, dense, safety,
+          readThresholds(dir), SlotFields.read(dir.slotFields()), new OpenTimes(millis(t1 - t0),
+              millis(t3 - t2), millis(t2 - t1), millis(denseNanos[0])));
+    } catch (IOException | RuntimeException | InterruptedException e) {
+      if (dense == null) {
+        try {
+          dense = joined(opening);
+        } catch (IOException | RuntimeException ignored) {
+          // The opening's own failure is the one reported.
+        }
+      }
       if (dense != null) {
         dense.close();
       }
-      retriever.close();
-      throw e;
+      if (retriever != null) {
+        retriever.close();
+      }
+      if (e instanceof InterruptedException) {
+        Thread.currentThread().interrupt();
+        throw new IOException("interrupted while opening " + dir.root(), e);
+      }
+      if (e instanceof IOException io) {
+        throw io;
+      }
+      throw (RuntimeException) e;
     }
+  }
+
+  /** The dense leg the opening thread made, its failure rethrown as it was. */
+  private static DenseLeg joined(CompletableFuture<DenseLeg> opening) throws IOException {
+    try {
+      return opening.join();
+    } catch (java.util.concurrent.CompletionException e) {
+      Throwable cause = e.getCause();
+      if (cause instanceof IOException io) {
+        throw io;
+      }
+      if (cause instanceof RuntimeException r) {
+        throw r;
+      }
+      if (cause instanceof Error err) {
+        throw err;
+      }
+      throw new IOException(cause);
+    }
+  }
+
+  private static long millis(long nanos) {
+    return Math.round(nanos / 1e6);
+  }
+
+  /** How long opening took, part by part (the reranker's load apart: {@link #rerankerLoad}). */
+  public OpenTimes openTimes() {
+    return openTimes;
+  }
+
+  /**
+   * How long loading the reranker's network took in milliseconds, or empty when it has not been
+   * loaded (opened with {@link #openRerankerOnFirstUse} and no decision needed it yet).
+   */
+  public java.util.OptionalLong rerankerLoad() {
+    return scorer.loaded() ? java.util.OptionalLong.of(millis(scorer.loadNanos()))
+        : java.util.OptionalLong.empty();
   }
 
   /**
@@ -113,9 +227,14 @@ public final class InForce implements Closeable {
     return DenseLeg.open(vectors, classifier);
   }
 
-  /** The pipeline that decides with what is in force. */
+  /** The pipeline that decides with what is in force, running the reranker as set. */
   public Pipeline pipeline() {
-    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds)
+    return pipeline(RerankerUse.fromSetting());
+  }
+
+  /** The pipeline that decides with what is in force. */
+  public Pipeline pipeline(RerankerUse rerankerUse) {
+    return Assembly.pipeline(retriever, scorer, dense, fusion, safety, thresholds, rerankerUse)
         .withSlotFields(slotFields);
   }
 
@@ -132,8 +251,9 @@ public final class InForce implements Closeable {
     return version;
   }
 
+  /** The reranker, loaded now if it was deferred. */
   public Scorer scorer() {
-    return scorer;
+    return scorer.get();
   }
 
   public FusionModel fusion() {

@@ -30,30 +30,39 @@ public final class Pipeline {
   private final Ranker ranker;
   private final SafetyPolicy safety;
   private final Thresholds thresholds;
+  private final RerankerUse rerankerUse;
+  private final List<ScoringSystem> systems;
   private final SlotFields slotFields;
   private final TextCleaner cleaner = TextCleaner.standard();
 
-  Pipeline(CandidateStages candidates, Ranker ranker, SafetyPolicy safety, Thresholds thresholds) {
-    this(candidates, ranker, safety, thresholds, SlotFields.NONE);
+  Pipeline(CandidateStages candidates, Ranker ranker, SafetyPolicy safety, Thresholds thresholds,
+      RerankerUse rerankerUse) {
+    this(candidates, ranker, safety, thresholds, rerankerUse, SlotFields.NONE);
   }
 
   private Pipeline(CandidateStages candidates, Ranker ranker, SafetyPolicy safety,
-      Thresholds thresholds, SlotFields slotFields) {
+      Thresholds thresholds, RerankerUse rerankerUse, SlotFields slotFields) {
     this.candidates = candidates;
     this.ranker = ranker;
     this.safety = safety;
     this.thresholds = thresholds;
+    this.rerankerUse = rerankerUse;
+    this.systems = ranker.systems().stream().filter(s -> switch (rerankerUse) {
+      case ALWAYS -> s != ScoringSystem.CASCADE;
+      case ON_DISAGREEMENT -> true;
+      case NEVER -> !s.usesReranker();
+    }).toList();
     this.slotFields = slotFields;
   }
 
   /** The same stages deciding with other thresholds. */
   public Pipeline withThresholds(Thresholds newThresholds) {
-    return new Pipeline(candidates, ranker, safety, newThresholds, slotFields);
+    return new Pipeline(candidates, ranker, safety, newThresholds, rerankerUse, slotFields);
   }
 
   /** The same stages, filling an answer's slots from the ticket's fields that {@code map} names. */
   public Pipeline withSlotFields(SlotFields map) {
-    return new Pipeline(candidates, ranker, safety, thresholds, map);
+    return new Pipeline(candidates, ranker, safety, thresholds, rerankerUse, map);
   }
 
   /** Which ticket field fills which slot. */
@@ -61,9 +70,27 @@ public final class Pipeline {
     return slotFields;
   }
 
-  /** Candidates and their scores for a cleaned question (stages one and two). */
+  /**
+   * Candidates and every score the pipeline's systems need for a cleaned question (stages one and
+   * two): the reranker's unless it is never used.
+   */
   public CandidateScoring candidates(String question, String excludedTicket) {
-    return candidates.score(question, excludedTicket);
+    return systems.stream().anyMatch(ScoringSystem::usesReranker)
+        ? candidates.score(question, excludedTicket)
+        : candidates.retrieve(question, excludedTicket);
+  }
+
+  /**
+   * Whether ranking by {@code system} needs the reranker for these candidates: the reranker is
+   * most of a decision's time, so the cascade runs it only where the faster legs disagree.
+   */
+  public boolean reranks(ScoringSystem system, CandidateScoring scoring) {
+    return system == ScoringSystem.CASCADE ? !ranker.legsAgree(scoring) : system.usesReranker();
+  }
+
+  /** The system that decides: the last of {@link #systems()}. */
+  public ScoringSystem decisionSystem() {
+    return systems.get(systems.size() - 1);
   }
 
   /** Candidates in one system's order with its confidence (fusion and calibration). */
@@ -71,9 +98,12 @@ public final class Pipeline {
     return ranker.rank(system, scoring);
   }
 
-  /** The scoring systems the model in force has, for side-by-side evaluation. */
-  public java.util.List<ScoringSystem> systems() {
-    return ranker.systems();
+  /**
+   * The scoring systems the model in force has and the reranker setting allows, for side-by-side
+   * evaluation; the one that decides is last.
+   */
+  public List<ScoringSystem> systems() {
+    return systems;
   }
 
   /**
@@ -110,10 +140,13 @@ public final class Pipeline {
    *               for them ({@link SlotFields}) is sent with them filled in, else handed off
    */
   public Decision decideCleaned(String question, String category, Map<String, String> fields) {
-    CandidateScoring scoring = candidates(question, null);
-    Ranked ranked = rank(ScoringSystem.FUSED, scoring);
-    boolean truncated = scoring.retrieval().truncated()
-        || scoring.scores().stream().anyMatch(s -> s.questionTruncated());
+    ScoringSystem system = decisionSystem();
+    CandidateScoring scoring = candidates.retrieve(question, null);
+    if (reranks(system, scoring)) {
+      scoring = candidates.rerank(question, scoring);
+    }
+    Ranked ranked = rank(system, scoring);
+    boolean truncated = scoring.truncated();
     double threshold = thresholds.forCategory(category);
     List<ScoredCandidate> candidates = ranked.candidates();
     AnswerGroup best = candidates.isEmpty() ? null : candidates.get(0).candidate().group();
@@ -121,6 +154,9 @@ public final class Pipeline {
 
     List<Explanation> parts = new ArrayList<>();
     parts.add(ranker.explain(ranked));
+    if (!candidates.isEmpty()) {
+      parts.add(Explanation.fact("reranker", rerankerNote(system, scoring)));
+    }
     boolean ownThreshold = thresholds.own(category).isPresent();
     parts.add(Explanation.of("threshold", threshold, ownThreshold
         ? "the threshold for category '" + category + "'" : "the threshold for every category"));
@@ -190,6 +226,17 @@ public final class Pipeline {
                 + "%s; it resolved %d past tickets.", groupId,
                 filled.isPresent() ? ", its slots filled from the ticket's fields," : "", ThresholdDecimals.confidence(confidence, threshold),
             ThresholdDecimals.of(threshold), best.size()), parts), truncated);
+  }
+
+  private static String rerankerNote(ScoringSystem system, CandidateScoring scoring) {
+    if (system == ScoringSystem.CASCADE) {
+      return scoring.reranked()
+          ? "run: BM25, the dense leg and their fusion disagree on the first answer"
+          : "not run: BM25, the dense leg and their fusion agree on the first answer";
+    }
+    return scoring.reranked() ? "run for every question (-D" + RerankerUse.PROPERTY + "="
+        + RerankerUse.ALWAYS.setting() + ")" : "not run (-D" + RerankerUse.PROPERTY + "="
+        + RerankerUse.NEVER.setting() + ")";
   }
 
   /** The decision's explanation: its sentence at the root, what it rests on below. */

@@ -23,9 +23,16 @@ import org.precedent.engine.measure.JudgedAnswer;
  *                    in service, whatever the confidence
  * @param answerGroup the group of the system's top candidate (the answer it would send), or null
  *                    when it had none or it was not recorded: the approval gate looks it up
+ * @param reranked    whether the system ran the reranker for this ticket
  */
 public record EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
-    double confidence, boolean safetyGate, String answerGroup) {
+    double confidence, boolean safetyGate, String answerGroup, boolean reranked) {
+  /** A ticket for a system whose use of the reranker is not measured. */
+  public EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
+      double confidence, boolean safetyGate, String answerGroup) {
+    this(ticketId, category, inScope, rankOfRight, confidence, safetyGate, answerGroup, false);
+  }
+
   /** A ticket the safety gate lets through to the threshold. */
   public EvaluatedTicket(String ticketId, String category, boolean inScope, int rankOfRight,
       double confidence) {

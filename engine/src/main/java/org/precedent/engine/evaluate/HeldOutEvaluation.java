@@ -93,12 +93,15 @@ public record HeldOutEvaluation(EvaluationReport report, List<HeldOutQuestion> q
     return questions;
   }
 
-  /** The fused system's part of a report: the one the service decides with. */
+  /**
+   * The deciding system's part of a report: the last, the one the service decides with (the
+   * cascade with a dense leg, else fused, as {@code -Dprecedent.reranker} sets).
+   */
   public static SystemReport fused(EvaluationReport report) {
     return report.systems().get(report.systems().size() - 1);
   }
 
-  /** The fused system's guaranteed threshold, when one could be guaranteed at the target. */
+  /** The deciding system's guaranteed threshold, when one could be guaranteed at the target. */
   public java.util.OptionalDouble guaranteedThreshold() {
     var r = fused(report).recommendation();
     return r.repliesAutomatically() ? java.util.OptionalDouble.of(r.threshold())

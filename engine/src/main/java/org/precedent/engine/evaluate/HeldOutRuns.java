@@ -63,7 +63,8 @@ public final class HeldOutRuns {
             q.category() == null ? "(none)" : q.category(), q.rightGroup() != null,
             rankOf(ranked.candidates(), q.rightGroup()), ranked.confidence(), gated,
             ranked.candidates().isEmpty() ? null
-                : ranked.candidates().get(0).candidate().group().id()));
+                : ranked.candidates().get(0).candidate().group().id(),
+            pipeline.reranks(s, scoring)));
       }
       progress.update(++done);
     }

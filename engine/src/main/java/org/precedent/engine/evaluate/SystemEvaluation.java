@@ -43,7 +43,8 @@ final class SystemEvaluation {
         ThresholdTable.rows(scored, THRESHOLD_GRID), recommendation,
         categories(tickets, categoryThreshold(recommendation, given, curve, targetPrecision)),
         (int) tickets.stream().filter(EvaluatedTicket::safetyGate).count(),
-        service(tickets, serviceThresholds(curve, recommendation)));
+        service(tickets, serviceThresholds(curve, recommendation)),
+        tickets.stream().filter(EvaluatedTicket::reranked).count() / (double) tickets.size());
   }
 
   /**

@@ -24,6 +24,8 @@ import org.precedent.engine.measure.ThresholdRow;
  *                       threshold of {@code thresholds}, at every step of the risk-coverage curve
  *                       (named by its shortest decimal, thinned as the curve is) and at the
  *                       recommended threshold; ascending; empty in reports made before it was kept
+ * @param rerankerRuns   the share of held-out tickets the system ran the reranker for: what it costs,
+ *                       since the reranker is most of a decision's time (0 in older reports)
  */
 public record SystemReport(
     String name,
@@ -34,7 +36,8 @@ public record SystemReport(
     ThresholdRecommendation recommendation,
     CategoryTable categories,
     int safetyHandOffs,
-    List<ServiceRow> service) {
+    List<ServiceRow> service,
+    double rerankerRuns) {
   public SystemReport {
     Objects.requireNonNull(name, "name");
     Objects.requireNonNull(measures, "measures");

@@ -52,6 +52,7 @@ public record MeasuredFigures(Map<String, String> measuredWith, Map<String, Doub
       out.put(key + ".brier", m.brierScore());
       out.put(key + ".auroc", m.auroc());
       out.put(key + ".coverage95", m.coverageAt95());
+      out.put(key + ".reranker_runs", s.rerankerRuns());
       ThresholdRecommendation r = s.recommendation();
       boolean ok = r.repliesAutomatically();
       out.put(key + ".threshold", ok ? r.threshold() : Double.NaN);

@@ -39,7 +39,8 @@ final class Features {
   private Features() {}
 
   /**
-   * One row of {@link #ALL} per candidate, in the candidates' order.
+   * One row of {@link #ALL} per candidate, in the candidates' order; the reranker's features are
+   * 0 where it did not run, which only systems without them may then read.
    */
   static double[][] of(CandidateScoring scoring) {
     List<Candidate> candidates = scoring.candidates();
@@ -51,7 +52,7 @@ final class Features {
     double[] probability = new double[n];
     for (int i = 0; i < n; i++) {
       bm25[i] = candidates.get(i).score();
-      rerank[i] = scores.get(i).antiLm();
+      rerank[i] = scores == null ? 0 : scores.get(i).antiLm();
       nearest[i] = candidates.get(i).proximity().nearest();
       probability[i] = scoring.posterior().get(i);
     }
@@ -61,11 +62,11 @@ final class Features {
     double[][] rows = new double[n][];
     for (int i = 0; i < n; i++) {
       Candidate c = candidates.get(i);
-      AnswerScore s = scores.get(i);
+      double perToken = scores == null ? 0 : scores.get(i).perTokenLogLikelihood();
       rows[i] = new double[] {
           bm25[i], 1.0 / c.rank(), margin(bm25, i), bm25Share[i],
           Math.log1p(c.hits()), Math.log1p(c.group().size()),
-          rerank[i], s.perTokenLogLikelihood(), 1.0 / rerankRank[i], margin(rerank, i),
+          rerank[i], perToken, 1.0 / rerankRank[i], margin(rerank, i),
           rerankShare[i],
           nearest[i], margin(nearest, i), c.proximity().vote(), probability[i],
           margin(probability, i)};

@@ -44,7 +44,7 @@ public final class FusionFit {
     // The dense leg's features are learnt from when the source embedded the questions.
     boolean dense = questions.stream().anyMatch(q -> q.scoring().retrieval().vector() != null);
     for (ScoringSystem system : ScoringSystem.values()) {
-      if (!system.applies(dense)) {
+      if (!system.fitted() || !system.applies(dense)) {
         continue;
       }
       SystemFit fit = SystemFit.fit(system, dense, questions);

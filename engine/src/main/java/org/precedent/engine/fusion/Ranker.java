@@ -23,16 +23,33 @@ public final class Ranker {
     return fusion;
   }
 
-  /** The systems the model has, in {@link ScoringSystem} order. */
+  /** The systems the model has, in {@link ScoringSystem} order; the cascade when it can run. */
   public List<ScoringSystem> systems() {
-    return fusion.fitted();
+    List<ScoringSystem> out = new ArrayList<>(fusion.fitted());
+    if (fusion.has(ScoringSystem.DENSE) && fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)) {
+      out.add(ScoringSystem.CASCADE);
+    }
+    return List.copyOf(out);
   }
 
   /**
    * @param scoring the candidates, in retrieval order, with their scores
-   * @throws IllegalArgumentException when the model has no such system
+   * @throws IllegalArgumentException when the model has no such system, or the system needs the
+   *                                  reranker's scores and the candidates lack them
    */
   public Ranked rank(ScoringSystem system, CandidateScoring scoring) {
+    if (system == ScoringSystem.CASCADE) {
+      if (!fusion.has(ScoringSystem.DENSE) || !fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)) {
+        throw new IllegalArgumentException("the cascade needs a model with a dense leg and "
+            + "fusion without the reranker");
+      }
+      return rank(legsAgree(scoring) ? ScoringSystem.FUSED_WITHOUT_RERANKER : ScoringSystem.FUSED,
+          scoring);
+    }
+    if (system.usesReranker() && !scoring.reranked()) {
+      throw new IllegalArgumentException(system.label() + " needs the reranker's scores, and "
+          + "the reranker did not run for this question");
+    }
     List<Candidate> candidates = scoring.candidates();
     List<AnswerScore> scores = scoring.scores();
     SystemModel own = fusion.system(system);
@@ -40,13 +57,14 @@ public final class Ranker {
       return new Ranked(system, List.of(), 0);
     }
     double[][] all = Features.of(scoring);
-    SystemModel fused = fusion.system(ScoringSystem.FUSED);
+    // Each candidate's own probability comes from the fullest model the scores allow.
+    SystemModel fused = fusion.system(scoring.reranked() ? ScoringSystem.FUSED : withoutReranker());
     double[][] ownRows = Features.select(all, own.features());
     List<ScoredCandidate> scored = new ArrayList<>();
     double[] ownLogit = new double[candidates.size()];
     for (int i = 0; i < candidates.size(); i++) {
       ownLogit[i] = own.model().logit(ownRows[i]);
-      scored.add(new ScoredCandidate(candidates.get(i), scores.get(i),
+      scored.add(new ScoredCandidate(candidates.get(i), scores == null ? null : scores.get(i),
           Arrays.stream(all[i]).boxed().toList(),
           fused.model().probability(Features.select(all[i], fused.features()))));
     }
@@ -57,6 +75,42 @@ public final class Ranker {
     }
     double confidence = own.calibration().calibrate(ownLogit[order[0]]);
     return new Ranked(system, ordered, confidence);
+  }
+
+  /**
+   * Whether BM25, the dense leg and their fusion put the same answer first, so the cascade leaves
+   * the reranker out; true when there is at most one candidate (nothing to reorder), false for a
+   * model without a dense leg (there is no second leg to agree).
+   */
+  public boolean legsAgree(CandidateScoring scoring) {
+    int n = scoring.candidates().size();
+    if (n <= 1) {
+      return true;
+    }
+    if (!fusion.has(ScoringSystem.DENSE) || !fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)) {
+      return false;
+    }
+    double[][] all = Features.of(scoring);
+    // BM25's first is the first candidate: the source lists BM25's in its order, then the rest.
+    return best(ScoringSystem.DENSE, all) == 0
+        && best(ScoringSystem.FUSED_WITHOUT_RERANKER, all) == 0;
+  }
+
+  /** The index of the candidate a system without the reranker's features puts first. */
+  private int best(ScoringSystem system, double[][] all) {
+    SystemModel model = fusion.system(system);
+    double[][] rows = Features.select(all, model.features());
+    double[] logits = new double[rows.length];
+    for (int i = 0; i < rows.length; i++) {
+      logits[i] = model.model().logit(rows[i]);
+    }
+    return order(system, logits, null)[0];
+  }
+
+  /** The fused system without the reranker, or BM25's in a model trained before it existed. */
+  private ScoringSystem withoutReranker() {
+    return fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)
+        ? ScoringSystem.FUSED_WITHOUT_RERANKER : ScoringSystem.BM25;
   }
 
   /**
@@ -99,7 +153,8 @@ public final class Ranker {
     Comparator<Integer> by = switch (system) {
       case BM25 -> Comparator.comparingInt(i -> i);
       case RERANKER -> Comparator.comparingDouble(i -> -scores.get(i).antiLm());
-      case DENSE, FUSED_WITHOUT_RERANKER, FUSED -> Comparator.comparingDouble(i -> -logits[i]);
+      case DENSE, FUSED_WITHOUT_RERANKER, FUSED, CASCADE ->
+          Comparator.comparingDouble(i -> -logits[i]);
     };
     Arrays.sort(order, by.thenComparingInt(i -> i));
     return Arrays.stream(order).mapToInt(Integer::intValue).toArray();

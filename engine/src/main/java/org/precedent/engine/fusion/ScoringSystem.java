@@ -18,7 +18,13 @@ public enum ScoringSystem {
   /** Order and confidence from a logistic combination of every feature but the reranker's. */
   FUSED_WITHOUT_RERANKER,
   /** Order and confidence from a logistic combination of all features. */
-  FUSED;
+  FUSED,
+  /**
+   * Fused without the reranker where BM25, the dense leg and their fusion put the same answer
+   * first, fused with it elsewhere: the reranker runs only where the faster legs disagree. Not a
+   * fitted model of its own but a rule over two fitted ones, so it needs a dense leg.
+   */
+  CASCADE;
 
   /** Systems every model has, dense leg or not. */
   static final List<ScoringSystem> ALWAYS = List.of(BM25, RERANKER, FUSED);
@@ -40,7 +46,7 @@ public enum ScoringSystem {
           out.addAll(Features.DENSE);
         }
       }
-      case FUSED -> {
+      case FUSED, CASCADE -> {
         out.addAll(Features.BM25);
         out.addAll(Features.RERANKER);
         if (dense) {
@@ -53,7 +59,17 @@ public enum ScoringSystem {
 
   /** Whether a model with or without a dense leg has this system. */
   public boolean applies(boolean dense) {
-    return this != DENSE || dense;
+    return (this != DENSE && this != CASCADE) || dense;
+  }
+
+  /** Whether fusion fits a logistic model for the system (all but the cascade, a rule over two). */
+  public boolean fitted() {
+    return this != CASCADE;
+  }
+
+  /** Whether ranking by the system may need the reranker's scores. */
+  public boolean usesReranker() {
+    return this == RERANKER || this == FUSED || this == CASCADE;
   }
 
   /** A lower-case name for reports. */
@@ -64,6 +80,7 @@ public enum ScoringSystem {
       case RERANKER -> "reranker alone";
       case FUSED_WITHOUT_RERANKER -> "fused without reranker";
       case FUSED -> "fused";
+      case CASCADE -> "fused, reranker where legs disagree";
     };
   }
 }

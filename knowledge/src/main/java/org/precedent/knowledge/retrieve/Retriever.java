@@ -66,6 +66,8 @@ public final class Retriever implements Closeable {
   private final float[][] vectors;
   private final String[] docIds;
   private final String[] docGroups;
+  private final String[] docQuestions;
+  private final String[] docCategories;
   private final Map<String, int[]> docsOfGroup;
   private final Map<String, Integer> docOfId = new java.util.HashMap<>();
 
@@ -76,16 +78,21 @@ public final class Retriever implements Closeable {
     this.searcher.setSimilarity(TicketIndex.similarity());
     this.groups = grouping.byId();
     this.vectors = readVectors(reader, reader.maxDoc());
-    // Only the dense leg needs every ticket's id and group at hand: a BM25-only index opens as
-    // fast as it did.
-    int n = vectors.length;
+    // Every ticket's id, group, question and category at hand: a decision reads a hundred BM25
+    // hits and each would otherwise decompress a block of stored fields (most of retrieval's time
+    // on the demo, measured by `benchmark decisions`), for a few MB per ten thousand tickets.
+    int n = reader.maxDoc();
     this.docIds = new String[n];
     this.docGroups = new String[n];
+    this.docQuestions = new String[n];
+    this.docCategories = new String[n];
     StoredFields stored = reader.storedFields();
     for (int d = 0; d < n; d++) {
       Document doc = stored.document(d);
       docIds[d] = doc.get(TicketIndex.ID);
       docGroups[d] = doc.get(TicketIndex.GROUP);
+      docQuestions[d] = doc.get(TicketIndex.QUESTION);
+      docCategories[d] = doc.get(TicketIndex.CATEGORY);
       docOfId.put(docIds[d], d);
     }
     Map<String, List<Integer>> byGroup = new LinkedHashMap<>();
@@ -140,10 +147,8 @@ public final class Retriever implements Closeable {
   /** Every stored ticket's question and vector by ticket id (empty without vectors). */
   public Map<String, QuestionVectors.Stored> storedVectors() throws IOException {
     Map<String, QuestionVectors.Stored> out = new LinkedHashMap<>();
-    StoredFields stored = reader.storedFields();
     for (int d = 0; d < vectors.length; d++) {
-      out.put(docIds[d], new QuestionVectors.Stored(stored.document(d).get(TicketIndex.QUESTION),
-          vectors[d].clone()));
+      out.put(docIds[d], new QuestionVectors.Stored(docQuestions[d], vectors[d].clone()));
     }
     return out;
   }
@@ -207,27 +212,22 @@ public final class Retriever implements Closeable {
     try {
       ScoreDoc[] hits = terms.isEmpty() ? new ScoreDoc[0]
           : searcher.search(query.build(), settings.depth()).scoreDocs;
-      StoredFields stored = searcher.storedFields();
       Set<String> termSet = Set.copyOf(terms);
-      Map<String, List<Evidence>> byGroup = new LinkedHashMap<>();
+      Map<String, List<ScoreDoc>> byGroup = new LinkedHashMap<>();
       List<Evidence> references = new ArrayList<>();
       for (ScoreDoc hit : hits) {
-        Document doc = stored.document(hit.doc);
-        String group = doc.get(TicketIndex.GROUP);
+        String group = docGroups[hit.doc];
         boolean reference = group.isEmpty() || !groups.containsKey(group);
         if (reference && references.size() >= settings.references()) {
           continue;
         }
-        String text = doc.get(TicketIndex.QUESTION);
-        Evidence evidence = new Evidence(doc.get(TicketIndex.ID), hit.score, text,
-            doc.get(TicketIndex.CATEGORY), matches(text, termSet));
         if (reference) {
-          references.add(evidence);
+          references.add(evidence(hit.doc, hit.score, termSet));
         } else {
-          byGroup.computeIfAbsent(group, g -> new ArrayList<>()).add(evidence);
+          byGroup.computeIfAbsent(group, g -> new ArrayList<>()).add(hit);
         }
       }
-      List<Candidate> candidates = rank(byGroup, settings);
+      List<Candidate> candidates = rank(byGroup, settings, termSet);
       if (vector != null) {
         candidates = withDenseLeg(candidates, vector, settings, excludedTicket, termSet);
       }
@@ -269,7 +269,6 @@ public final class Retriever implements Closeable {
           proximity(c.group().id(), vector, votes, excludedDoc)));
       proposed.add(c.group().id());
     }
-    StoredFields stored = searcher.storedFields();
     int added = 0;
     // The hits come nearest first, so the groups are met in order of their nearest ticket.
     for (Map.Entry<String, List<Integer>> e : nearDocs.entrySet()) {
@@ -281,10 +280,7 @@ public final class Retriever implements Closeable {
       }
       List<Evidence> evidence = new ArrayList<>();
       for (int d : e.getValue().subList(0, Math.min(settings.evidence(), e.getValue().size()))) {
-        Document doc = stored.document(d);
-        String text = doc.get(TicketIndex.QUESTION);
-        evidence.add(new Evidence(docIds[d], 0, text, doc.get(TicketIndex.CATEGORY),
-            matches(text, termSet)));
+        evidence.add(evidence(d, 0, termSet));
       }
       out.add(new Candidate(groups.get(e.getKey()), out.size() + 1, 0, 0, evidence,
           proximity(e.getKey(), vector, votes, excludedDoc)));
@@ -304,30 +300,58 @@ public final class Retriever implements Closeable {
     return new Proximity(nearest, votes.getOrDefault(group, 0) / (double) NEIGHBOURS);
   }
 
-  private static double dot(float[] a, float[] b) {
-    double s = 0;
-    for (int i = 0; i < a.length; i++) {
-      s += a[i] * b[i];
+  /**
+   * The dot product, in four running sums: a group's nearest question is a scan over all its
+   * tickets' vectors, a tenth of a decision's time in one sum (the next addition waits for the
+   * last), less than half that in four.
+   */
+  static double dot(float[] a, float[] b) {
+    double s0 = 0;
+    double s1 = 0;
+    double s2 = 0;
+    double s3 = 0;
+    int i = 0;
+    for (int n = a.length - 3; i < n; i += 4) {
+      s0 += a[i] * b[i];
+      s1 += a[i + 1] * b[i + 1];
+      s2 += a[i + 2] * b[i + 2];
+      s3 += a[i + 3] * b[i + 3];
     }
-    return s;
+    for (; i < a.length; i++) {
+      s0 += a[i] * b[i];
+    }
+    return (s0 + s1) + (s2 + s3);
   }
 
-  private List<Candidate> rank(Map<String, List<Evidence>> byGroup, RetrievalSettings settings) {
-    record Scored(String group, double score, List<Evidence> evidence) {}
+  /**
+   * The groups of BM25's hits ranked by their aggregated score; evidence, with its matched terms,
+   * is made only for the hits a candidate keeps, since finding the matches re-analyses the text.
+   */
+  private List<Candidate> rank(Map<String, List<ScoreDoc>> byGroup, RetrievalSettings settings,
+      Set<String> termSet) {
+    record Scored(String group, double score, List<ScoreDoc> hits) {}
     List<Scored> scored = new ArrayList<>();
-    byGroup.forEach((group, evidence) -> scored.add(new Scored(group,
-        settings.aggregation().combine(evidence.stream().map(Evidence::score).toList()), evidence)));
+    byGroup.forEach((group, hits) -> scored.add(new Scored(group,
+        settings.aggregation().combine(hits.stream().map(h -> (double) h.score).toList()), hits)));
     // Ties go to the larger group, then the id, so that rankings are reproducible.
     scored.sort(Comparator.comparingDouble(Scored::score).reversed()
         .thenComparing(s -> -groups.get(s.group()).size())
         .thenComparing(Scored::group));
     List<Candidate> candidates = new ArrayList<>();
     for (Scored s : scored.subList(0, Math.min(settings.candidates(), scored.size()))) {
+      List<Evidence> evidence = new ArrayList<>();
+      for (ScoreDoc h : s.hits().subList(0, Math.min(settings.evidence(), s.hits().size()))) {
+        evidence.add(evidence(h.doc, h.score, termSet));
+      }
       candidates.add(new Candidate(groups.get(s.group()), candidates.size() + 1, s.score(),
-          s.evidence().size(), s.evidence().subList(0, Math.min(settings.evidence(),
-              s.evidence().size())), Proximity.NONE));
+          s.hits().size(), evidence, Proximity.NONE));
     }
     return candidates;
+  }
+
+  private Evidence evidence(int doc, double score, Set<String> termSet) {
+    return new Evidence(docIds[doc], score, docQuestions[doc], docCategories[doc],
+        matches(docQuestions[doc], termSet));
   }
 
   /** The distinct analysed terms of a text, in order of first use. */

@@ -22,8 +22,10 @@ import org.precedent.knowledge.group.Grouping;
 import org.precedent.knowledge.ticket.Ticket;
 
 /**
- * One generation of stored knowledge: the cleaned tickets and their answer groups, read into memory,
- * and where the generation's search index lies.
+ * One generation of stored knowledge: the cleaned tickets and their answer groups, and where the
+ * generation's search index lies. The groups and the manifest are read at once; the tickets when
+ * first asked for, since deciding needs only the index (and a service then holds no second copy
+ * of every ticket, nor does a one-question command wait to read them).
  *
  * <p>Files of a generation: {@code tickets.jsonl} (one ticket a line), {@code groups.json},
  * {@code manifest.json}, and {@code index/}. A generation never changes once written. The store
@@ -39,7 +41,7 @@ public final class Knowledge {
   private static final String INDEX = "index";
 
   private final Path generation;
-  private final Map<String, Ticket> tickets;
+  private volatile Map<String, Ticket> tickets;
   private final Grouping grouping;
   private final Manifest manifest;
 
@@ -51,9 +53,8 @@ public final class Knowledge {
         throws IOException;
   }
 
-  private Knowledge(Path generation, Map<String, Ticket> tickets, Grouping grouping, Manifest manifest) {
+  private Knowledge(Path generation, Grouping grouping, Manifest manifest) {
     this.generation = generation;
-    this.tickets = Collections.unmodifiableMap(tickets);
     this.grouping = grouping;
     this.manifest = manifest;
   }
@@ -65,17 +66,33 @@ public final class Knowledge {
       return Optional.empty();
     }
     Path generation = current.get();
-    Map<String, Ticket> tickets = new LinkedHashMap<>();
-    try (BufferedReader in = Files.newBufferedReader(generation.resolve("tickets.jsonl"))) {
-      String line;
-      while ((line = in.readLine()) != null) {
-        Ticket t = JSON.readValue(line, Ticket.class);
-        tickets.put(t.id(), t);
-      }
+    Path ticketsFile = generation.resolve("tickets.jsonl");
+    if (!Files.isRegularFile(ticketsFile)) {
+      throw new IOException(ticketsFile + ": missing from the generation in force");
     }
     Grouping grouping = JSON.readValue(generation.resolve("groups.json").toFile(), Grouping.class);
     Manifest manifest = JSON.readValue(generation.resolve("manifest.json").toFile(), Manifest.class);
-    return Optional.of(new Knowledge(generation, tickets, grouping, manifest));
+    return Optional.of(new Knowledge(generation, grouping, manifest));
+  }
+
+  private static Map<String, Ticket> readTickets(Path file) throws IOException {
+    Map<String, Ticket> tickets = new LinkedHashMap<>();
+    try (BufferedReader in = Files.newBufferedReader(file)) {
+      String line;
+      int number = 0;
+      while ((line = in.readLine()) != null) {
+        number++;
+        Ticket t;
+        try {
+          t = JSON.readValue(line, Ticket.class);
+        } catch (IOException | RuntimeException e) {
+          throw new IOException(file + ":" + number + ": not a stored ticket ("
+              + String.valueOf(e.getMessage()).split("\n")[0] + ")", e);
+        }
+        tickets.put(t.id(), t);
+      }
+    }
+    return Collections.unmodifiableMap(tickets);
   }
 
   /**
@@ -129,7 +146,20 @@ public final class Knowledge {
 
   /** Tickets by id, in the order they were stored. */
   public Map<String, Ticket> tickets() {
-    return tickets;
+    Map<String, Ticket> read = tickets;
+    if (read == null) {
+      synchronized (this) {
+        if (tickets == null) {
+          try {
+            tickets = readTickets(generation.resolve("tickets.jsonl"));
+          } catch (IOException e) {
+            throw new java.io.UncheckedIOException(e.getMessage(), e);
+          }
+        }
+        read = tickets;
+      }
+    }
+    return read;
   }
 
   public Grouping grouping() {
