@@ -155,7 +155,7 @@ public final class Pipeline {
     List<Explanation> parts = new ArrayList<>();
     parts.add(ranker.explain(ranked));
     if (!candidates.isEmpty()) {
-      parts.add(Explanation.fact("reranker", rerankerNote(system, scoring)));
+      parts.add(Explanation.fact("reranker", rerankerNote(system, scoring, rerankerUse)));
     }
     boolean ownThreshold = thresholds.own(category).isPresent();
     parts.add(Explanation.of("threshold", threshold, ownThreshold
@@ -228,15 +228,19 @@ public final class Pipeline {
             ThresholdDecimals.of(threshold), best.size()), parts), truncated);
   }
 
-  private static String rerankerNote(ScoringSystem system, CandidateScoring scoring) {
+  private static String rerankerNote(ScoringSystem system, CandidateScoring scoring,
+      RerankerUse use) {
     if (system == ScoringSystem.CASCADE) {
       return scoring.reranked()
           ? "run: BM25, the dense leg and their fusion disagree on the first answer"
           : "not run: BM25, the dense leg and their fusion agree on the first answer";
     }
-    return scoring.reranked() ? "run for every question (-D" + RerankerUse.PROPERTY + "="
-        + RerankerUse.ALWAYS.setting() + ")" : "not run (-D" + RerankerUse.PROPERTY + "="
-        + RerankerUse.NEVER.setting() + ")";
+    if (!scoring.reranked()) {
+      return "not run (-D" + RerankerUse.PROPERTY + "=" + RerankerUse.NEVER.setting() + ")";
+    }
+    return use == RerankerUse.ALWAYS ? "run for every question (-D" + RerankerUse.PROPERTY + "="
+        + RerankerUse.ALWAYS.setting() + ")"
+        : "run for every question: this model has no dense leg to agree or disagree with BM25";
   }
 
   /** The decision's explanation: its sentence at the root, what it rests on below. */
