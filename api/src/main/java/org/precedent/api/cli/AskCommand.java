@@ -65,13 +65,14 @@ final class AskCommand implements Callable<Integer> {
       return retrievalOnly(dataDir, out);
     }
     long started = System.nanoTime();
+    PrintWriter err = spec.commandLine().getErr();
     // The reranker loads only for a question the faster legs disagree on: a one-question command
-    // then waits for neither the numeric library nor the network.
-    try (InForce active = InForce.openRerankerOnFirstUse(dataDir)) {
+    // then waits for neither the numeric library nor the network, and is told when it does.
+    try (InForce active = InForce.openRerankerOnFirstUse(dataDir,
+        () -> NumericLibrary.announce(err))) {
       long opened = System.nanoTime();
       Pipeline pipeline = active.pipeline();
       DecisionPrinter printer = new DecisionPrinter(out, candidates);
-      PrintWriter err = spec.commandLine().getErr();
       if (timings) {
         InForce.OpenTimes t = active.openTimes();
         err.printf(Locale.ROOT, "timings: JVM start to this command %.2f s; opened in %.2f s "

@@ -18,6 +18,7 @@ import org.precedent.engine.evaluate.EvaluationReport;
 import org.precedent.engine.evaluate.ReportFiles;
 import org.precedent.engine.figures.ExpectedFigures;
 import org.precedent.engine.figures.MeasuredFigures;
+import org.precedent.engine.fusion.ScoringSystem;
 import org.precedent.knowledge.store.DataDir;
 
 /**
@@ -120,7 +121,15 @@ class FiguresCommandTest {
     EvaluationReport report = ReportFiles.readJson(data.resolve("reports").resolve("latest.json"));
     assertEquals(600.0, m.figures().get("heldout.tickets"));
     assertEquals((double) report.inScopeTickets(), m.figures().get("heldout.in_scope"));
-    assertEquals(report.systems().get(report.systems().size() - 1).measures().top1(), m.figures().get("fused.top1"));
+    // Each system under its own name; the deciding one (the cascade, with this model's dense leg)
+    // is the report's last.
+    assertEquals(report.systems().stream().filter(s -> s.name().equals(ScoringSystem.FUSED.label()))
+        .findFirst().orElseThrow().measures().top1(), m.figures().get("fused.top1"));
+    var deciding = report.systems().get(report.systems().size() - 1);
+    ScoringSystem decides = java.util.Arrays.stream(ScoringSystem.values())
+        .filter(s -> s.label().equals(deciding.name())).findFirst().orElseThrow();
+    assertEquals(deciding.measures().top1(),
+        m.figures().get(decides.name().toLowerCase(java.util.Locale.ROOT) + ".top1"));
     // The anti-LM weight as the model version's own settings file records it.
     Properties config = new Properties();
     config.load(new StringReader(Files.readString(data.resolve("models/v-0001/config.properties"))));

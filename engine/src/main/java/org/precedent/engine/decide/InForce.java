@@ -90,11 +90,27 @@ public final class InForce implements Closeable {
    * decision, not the opening.
    */
   public static InForce openRerankerOnFirstUse(DataDir dir) throws IOException {
-    return open(dir, null, true);
+    return openRerankerOnFirstUse(dir, () -> { });
+  }
+
+  /**
+   * As {@link #openRerankerOnFirstUse(DataDir)}, running {@code beforeLoading} just before the
+   * network loads: where a command says that the numeric library is loading, and only then.
+   */
+  public static InForce openRerankerOnFirstUse(DataDir dir, Runnable beforeLoading)
+      throws IOException {
+    return open(dir, null, beforeLoading);
   }
 
   private static InForce open(DataDir dir, String modelVersion, boolean deferReranker)
       throws IOException {
+    return open(dir, modelVersion, deferReranker ? () -> { } : null);
+  }
+
+  /** @param beforeLoading null to load the reranker now, else what to run before loading it */
+  private static InForce open(DataDir dir, String modelVersion, Runnable beforeLoading)
+      throws IOException {
+    boolean deferReranker = beforeLoading != null;
     long t0 = System.nanoTime();
     Knowledge knowledge = Knowledge.open(dir).orElseThrow(() -> new IOException(
         "no tickets in " + dir.root() + " yet: run 'precedent ingest FILE' first"));
@@ -128,7 +144,10 @@ public final class InForce implements Closeable {
       long t3 = System.nanoTime();
       DeferredScorer scorer;
       if (deferReranker) {
-        scorer = new DeferredScorer(() -> new Scorer(store.load(version)));
+        scorer = new DeferredScorer(() -> {
+          beforeLoading.run();
+          return new Scorer(store.load(version));
+        });
       } else {
         long l0 = System.nanoTime();
         Scorer loaded = new Scorer(store.load(version));
