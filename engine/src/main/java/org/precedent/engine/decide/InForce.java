@@ -119,8 +119,21 @@ public final class InForce implements Closeable {
     String version = modelVersion != null ? modelVersion : store.activeVersion().orElseThrow(
         () -> new IOException("no trained model in " + dir.root()
             + " yet: run 'precedent train' first"));
-    // Every file of the version is checked before any is read.
-    store.verify(version);
+    // Every file of the version is checked before any is read: by loading the network, which
+    // checks them all first, or on their own when the network waits for its first use (which
+    // checks them again).
+    DeferredScorer scorer;
+    if (deferReranker) {
+      store.verify(version);
+      scorer = new DeferredScorer(() -> {
+        beforeLoading.run();
+        return new Scorer(store.load(version));
+      });
+    } else {
+      long l0 = System.nanoTime();
+      Scorer loaded = new Scorer(store.load(version));
+      scorer = new DeferredScorer(loaded, System.nanoTime() - l0);
+    }
     FusionModel fusion = FusionModel.load(store.directory(version));
     long t2 = System.nanoTime();
     // The encoder's session (native code, most of an opening's time) is made beside the index.
@@ -142,24 +155,14 @@ public final class InForce implements Closeable {
     try {
       retriever = Retriever.open(knowledge);
       long t3 = System.nanoTime();
-      DeferredScorer scorer;
-      if (deferReranker) {
-        scorer = new DeferredScorer(() -> {
-          beforeLoading.run();
-          return new Scorer(store.load(version));
-        });
-      } else {
-        long l0 = System.nanoTime();
-        Scorer loaded = new Scorer(store.load(version));
-        scorer = new DeferredScorer(loaded, System.nanoTime() - l0);
-      }
       dense = joined(opening);
       denseThread.join();
       Path rules = dir.safetyRules();
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
       return new InForce(knowledge, retriever, version, scorer, fusion, dense, safety,
           readThresholds(dir), SlotFields.read(dir.slotFields()), new OpenTimes(millis(t1 - t0),
-              millis(t3 - t2), millis(t2 - t1), millis(denseNanos[0])));
+              millis(t3 - t2), millis(t2 - t1 - (deferReranker ? 0 : scorer.loadNanos())),
+              millis(denseNanos[0])));
     } catch (IOException | RuntimeException | InterruptedException e) {
       if (dense == null) {
         try {

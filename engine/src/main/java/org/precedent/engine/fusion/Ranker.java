@@ -26,7 +26,7 @@ public final class Ranker {
   /** The systems the model has, in {@link ScoringSystem} order; the cascade when it can run. */
   public List<ScoringSystem> systems() {
     List<ScoringSystem> out = new ArrayList<>(fusion.fitted());
-    if (fusion.has(ScoringSystem.DENSE) && fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)) {
+    if (cascades()) {
       out.add(ScoringSystem.CASCADE);
     }
     return List.copyOf(out);
@@ -39,7 +39,7 @@ public final class Ranker {
    */
   public Ranked rank(ScoringSystem system, CandidateScoring scoring) {
     if (system == ScoringSystem.CASCADE) {
-      if (!fusion.has(ScoringSystem.DENSE) || !fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)) {
+      if (!cascades()) {
         throw new IllegalArgumentException("the cascade needs a model with a dense leg and "
             + "fusion without the reranker");
       }
@@ -87,7 +87,7 @@ public final class Ranker {
     if (n <= 1) {
       return true;
     }
-    if (!fusion.has(ScoringSystem.DENSE) || !fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)) {
+    if (!cascades()) {
       return false;
     }
     double[][] all = Features.of(scoring);
@@ -105,6 +105,11 @@ public final class Ranker {
       logits[i] = model.model().logit(rows[i]);
     }
     return order(system, logits, null)[0];
+  }
+
+  /** Whether the model has the two systems the cascade chooses between by the legs' agreement. */
+  private boolean cascades() {
+    return fusion.has(ScoringSystem.DENSE) && fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER);
   }
 
   /** The fused system without the reranker, or BM25's in a model trained before it existed. */
