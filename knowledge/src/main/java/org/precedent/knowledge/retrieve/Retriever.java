@@ -79,8 +79,10 @@ public final class Retriever implements Closeable {
     this.groups = grouping.byId();
     this.vectors = readVectors(reader, reader.maxDoc());
     // Every ticket's id, group, question and category at hand: a decision reads a hundred BM25
-    // hits and each would otherwise decompress a block of stored fields (most of retrieval's time
-    // on the demo, measured by `benchmark decisions`), for a few MB per ten thousand tickets.
+    // hits and each would otherwise decompress a block of stored fields (most of retrieval's
+    // samples in a profile of `benchmark decisions`). The price: the opening reads every stored
+    // ticket once, a BM25-only index too, and holds the questions' text (the cleaned questions,
+    // as tickets.jsonl holds them) in memory.
     int n = reader.maxDoc();
     this.docIds = new String[n];
     this.docGroups = new String[n];
@@ -302,8 +304,8 @@ public final class Retriever implements Closeable {
 
   /**
    * The dot product, in four running sums: a group's nearest question is a scan over all its
-   * tickets' vectors, a tenth of a decision's time in one sum (the next addition waits for the
-   * last), less than half that in four.
+   * tickets' vectors (a tenth of a decision's samples in a profile of the service), and in one sum
+   * each addition waits for the last, where four independent ones can overlap.
    */
   static double dot(float[] a, float[] b) {
     double s0 = 0;
