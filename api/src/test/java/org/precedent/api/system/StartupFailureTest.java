@@ -99,6 +99,23 @@ class StartupFailureTest {
   }
 
   @Test
+  void anUnknownRerankerSettingNamesItAndItsValues() {
+    String before = System.getProperty("precedent.reranker");
+    System.setProperty("precedent.reranker", "sometimes");
+    try {
+      String message = startFails();
+      assertTrue(message.contains("-Dprecedent.reranker=sometimes")
+          && message.contains("on-disagreement"), message);
+    } finally {
+      if (before == null) {
+        System.clearProperty("precedent.reranker");
+      } else {
+        System.setProperty("precedent.reranker", before);
+      }
+    }
+  }
+
+  @Test
   void aReadOnlyDatabaseFileNamesItself() throws Exception {
     Path db = serviceDatabase();
     Files.setPosixFilePermissions(db, PosixFilePermissions.fromString("r--r--r--"));

@@ -61,4 +61,24 @@ class KnowledgeTest {
     assertEquals(1, k.tickets().size());
     assertTrue(Files.notExists(dir.knowledge().resolve("gen-000002")), "the unfinished generation is removed");
   }
+
+  /**
+   * The tickets are read when first asked for, not at the opening: a damaged line then names the
+   * file and the line, and a generation whose tickets file is gone is refused at the opening.
+   */
+  @Test
+  void aDamagedTicketsFileNamesItsLineWhenTheTicketsAreRead(@TempDir Path tmp) throws Exception {
+    DataDir dir = new DataDir(tmp);
+    Knowledge.replace(dir, TICKETS, ONE_OFFS, List.of("a.csv"), (index, tickets, grouping) -> null);
+    Path file = dir.knowledge().resolve("gen-000001").resolve("tickets.jsonl");
+    List<String> lines = Files.readAllLines(file);
+    Files.write(file, List.of(lines.get(0), "{\"id\": \"T-2\", \"question\": "));
+    Knowledge k = Knowledge.open(dir).orElseThrow();
+    java.io.UncheckedIOException e = assertThrows(java.io.UncheckedIOException.class, k::tickets);
+    assertTrue(e.getMessage().startsWith(file + ":2: not a stored ticket"), e.getMessage());
+
+    Files.delete(file);
+    IOException gone = assertThrows(IOException.class, () -> Knowledge.open(dir));
+    assertTrue(gone.getMessage().contains(file + ": missing"), gone.getMessage());
+  }
 }
