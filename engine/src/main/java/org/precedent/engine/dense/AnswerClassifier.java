@@ -22,8 +22,8 @@ import org.precedent.knowledge.io.AtomicFiles;
  * Machine Learning, section 4.3.4) over standardised vector components, with an L2 penalty on the
  * weights. Its probability of a candidate's group is one of the dense leg's fusion features.
  *
- * <p>Fitted by {@code train} on the reranker split, so that the fusion split it is used on is not
- * what it learnt from. Saved as {@code dense.json} in the model version with the encoder that made
+ * <p>Fitted by {@code train} on the stored tickets fusion does not ask (the reranker split), so
+ * that the fusion questions it is used on are not what it learnt from. Saved as {@code dense.json} in the model version with the encoder that made
  * the vectors: a classifier must not read vectors of another encoder.
  *
  * @param encoder the encoder's name and model-file SHA-256, as the knowledge's manifest has them

@@ -7,7 +7,17 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Set;
+import java.util.HashSet;
+import java.util.Locale;
+import java.util.Optional;
 import org.precedent.engine.decide.InForce;
+import org.precedent.engine.decide.Pipeline;
+import org.precedent.engine.fusion.FusionFit;
+import org.precedent.engine.fusion.FusionModel;
+import org.precedent.engine.rerank.store.ModelStore;
+import org.precedent.knowledge.embed.Encoders;
+import org.precedent.knowledge.embed.SentenceEncoder;
+import org.precedent.knowledge.store.Manifest;
 import org.precedent.engine.evaluate.HeldOutRuns.HeldOutQuestion;
 import org.precedent.engine.fusion.FusionQuestion;
 import org.precedent.engine.learn.TeamModelTrainer;
@@ -18,7 +28,6 @@ import org.precedent.knowledge.clean.TextCleaner;
 import org.precedent.knowledge.datasets.Clinc150;
 import org.precedent.knowledge.group.AnswerGrouper;
 import org.precedent.knowledge.ingest.Ingestor;
-import org.precedent.knowledge.io.AtomicFiles;
 import org.precedent.knowledge.io.Progress;
 import org.precedent.knowledge.store.DataDir;
 import org.precedent.knowledge.store.Knowledge;
@@ -49,9 +58,22 @@ public record ClincEvaluation(String scope, List<Ticket> train, List<FusionQuest
     test = List.copyOf(test);
   }
 
-  /** One system's figures on the test questions at the threshold tuned on validation. */
-  public record Row(String system, double threshold, double inScopeAccuracy,
-      double outOfScopeRecall) {}
+  /**
+   * One system's figures: on the in-scope test questions with no threshold, and on every test
+   * question at the threshold tuned on validation (with what that threshold gave on validation, to
+   * read how well it carried over).
+   *
+   * @param inScopeTop1          share of in-scope test questions whose right intent ranks first
+   * @param threshold            the threshold tuned on validation ({@link #bestThreshold})
+   * @param inScopeAccuracy      in-scope test questions answered, and right, at the threshold
+   * @param outOfScopeRecall     out-of-scope test questions held back by the threshold
+   * @param validationInScope    the same on validation
+   * @param validationOutOfScope the same on validation
+   * @param reranked             share of test questions the system ran the reranker for
+   */
+  public record Row(String system, double inScopeTop1, double threshold, double inScopeAccuracy,
+      double outOfScopeRecall, double validationInScope, double validationOutOfScope,
+      double reranked) {}
 
   /** What a run measured, and how training went. */
   public record Result(String trainingSummary, double trainingSeconds, List<Row> rows) {
@@ -75,44 +97,102 @@ public record ClincEvaluation(String scope, List<Ticket> train, List<FusionQuest
   }
 
   /**
-   * Ingests the training tickets into a scratch data directory under {@code scratch}, trains a
-   * model with at most {@code epochs} reranker epochs, and measures; the scratch directory is
-   * deleted afterwards. Progress lines go to {@code progress}.
+   * Ingests the training tickets into {@code work}, trains a model there with at most {@code
+   * epochs} reranker epochs, scores validation and test, and measures. Everything is kept in
+   * {@code work}, so a run that is interrupted continues where it stopped: the knowledge (with its
+   * vectors) is not stored again, an unfinished reranker resumes from its checkpoint, a finished
+   * model is not trained again, and scored questions are read back. Progress lines go to {@code
+   * progress}.
+   *
+   * @throws IllegalStateException if {@code work} holds another run's tickets
    */
-  public Result run(Path scratch, int epochs, PrintStream progress) throws IOException {
-    Path work = Files.createTempDirectory(scratch, "precedent-clinc-");
-    try {
-      DataDir dataDir = new DataDir(work.resolve("data"));
-      new Ingestor(dataDir, CLEANER, AnswerGrouper.standard()).store(new Ingestor.ParsedExport(
-          "CLINC150 " + scope + " train", train.size(), 0, train, List.of(), List.of()),
-          new Progress("indexing", "tickets", progress));
-      Knowledge knowledge = Knowledge.open(dataDir).orElseThrow();
-      List<TrainingPair> pairs = train.stream()
-          .map(t -> new TrainingPair(t.question(), t.reply())).toList();
-      long start = System.nanoTime();
-      // Intent names are 2 to 4 words, learned better with a smaller step than the default.
-      TrainingReport report = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
-          .withEpochs(epochs, RerankerConfig.defaults().patience()).withLearningRate(2e-3))
-          .train(knowledge, pairs, validation, false);
-      double seconds = (System.nanoTime() - start) / 1e9;
-      try (InForce active = InForce.open(dataDir)) {
-        List<HeldOutQuestion> val = validation.stream().map(v -> new HeldOutQuestion(v.ticketId(),
-            v.question(), "clinc", v.rightGroup())).toList();
-        List<SystemRun> valRuns = HeldOutRuns.modelAlone(active.pipeline(), val,
-            new Progress("scoring validation", "queries", progress));
-        List<SystemRun> testRuns = HeldOutRuns.modelAlone(active.pipeline(), test,
-            new Progress("scoring test", "queries", progress));
-        List<Row> rows = new ArrayList<>();
-        for (int s = 0; s < testRuns.size(); s++) {
-          double t = bestThreshold(valRuns.get(s).tickets());
-          double[] figures = atThreshold(testRuns.get(s).tickets(), t);
-          rows.add(new Row(testRuns.get(s).name(), t, figures[0], figures[1]));
-        }
-        return new Result(report.summary(), seconds, rows);
+  public Result run(Path work, int epochs, PrintStream progress) throws IOException {
+    Files.createDirectories(work);
+    DataDir dataDir = new DataDir(work.resolve("data"));
+    Knowledge knowledge = knowledge(dataDir, progress);
+    // The reranker learns from every training ticket: validation, not a share of train, is what
+    // fusion and the threshold are fitted on, as the paper keeps validation for tuning.
+    List<TrainingPair> pairs = train.stream()
+        .map(t -> new TrainingPair(t.question(), t.reply())).toList();
+    // Intent names are 2 to 4 words, learned better with a smaller step than the default.
+    TeamModelTrainer trainer = new TeamModelTrainer(dataDir, RerankerConfig.defaults()
+        .withEpochs(epochs, RerankerConfig.defaults().patience()).withLearningRate(2e-3));
+    ModelStore store = new ModelStore(dataDir.models());
+    Optional<String> trained = trainer.currentVersion(knowledge, pairs);
+    TrainingReport report;
+    if (trained.isPresent()) {
+      progress.printf(Locale.ROOT, "model %s in %s was trained on these tickets: not trained "
+          + "again%n", trained.get(), work);
+      report = new TrainingReport(trained.get(), false,
+          store.trainingMetrics(trained.get()).orElseThrow(),
+          FusionFit.summary(FusionModel.load(store.directory(trained.get()))));
+    } else {
+      report = trainer.train(knowledge, pairs, validation, true);
+      if (!report.activated()) {
+        store.activate(report.version());
       }
-    } finally {
-      AtomicFiles.deleteTree(work);
     }
+    try (InForce active = InForce.open(dataDir)) {
+      Pipeline pipeline = active.pipeline();
+      List<HeldOutQuestion> val = validation.stream().map(v -> new HeldOutQuestion(v.ticketId(),
+          v.question(), "clinc", v.rightGroup())).toList();
+      ScoredRuns scores = new ScoredRuns(work.resolve("scores-" + report.version() + ".tsv"),
+          store.fingerprint(report.version()), pipeline.systems());
+      List<SystemRun> valRuns = scores.runs("validation", pipeline, val, progress);
+      List<SystemRun> testRuns = scores.runs("test", pipeline, test, progress);
+      List<Row> rows = new ArrayList<>();
+      for (int s = 0; s < testRuns.size(); s++) {
+        List<EvaluatedTicket> v = valRuns.get(s).tickets();
+        List<EvaluatedTicket> t = testRuns.get(s).tickets();
+        double threshold = bestThreshold(v);
+        double[] onTest = atThreshold(t, threshold);
+        double[] onValidation = atThreshold(v, threshold);
+        rows.add(new Row(testRuns.get(s).name(), inScopeTop1(t), threshold, onTest[0], onTest[1],
+            onValidation[0], onValidation[1],
+            t.stream().filter(EvaluatedTicket::reranked).count() / (double) t.size()));
+      }
+      return new Result(report.summary(), report.reranker().trainingMillis() / 1000.0, rows);
+    }
+  }
+
+  /**
+   * The knowledge of the training tickets in {@code dataDir}: what is there when it holds exactly
+   * these tickets, with vectors of the encoder in use (if any), else stored now.
+   */
+  private Knowledge knowledge(DataDir dataDir, PrintStream progress) throws IOException {
+    Set<String> ids = new HashSet<>();
+    train.forEach(t -> ids.add(t.id()));
+    Optional<Knowledge> current = Knowledge.open(dataDir);
+    Optional<SentenceEncoder.Model> encoder = Encoders.fromSetting();
+    if (current.isPresent()) {
+      if (!current.get().tickets().keySet().equals(ids)) {
+        throw new IllegalStateException(dataDir.root() + " holds " + current.get().tickets()
+            .size() + " tickets that are not CLINC150 " + scope + "'s " + ids.size()
+            + " training queries: give another --work directory or delete it");
+      }
+      Manifest.Vectors vectors = current.get().manifest().vectors();
+      if (encoder.isEmpty() ? vectors == null
+          : vectors != null && vectors.encoder().equals(encoder.get().name())) {
+        progress.printf(Locale.ROOT, "knowledge in %s holds the %,d training queries%s: not "
+            + "stored again%n", dataDir.root(), ids.size(),
+            vectors == null ? "" : " and their vectors (" + vectors.encoder() + ")");
+        return current.get();
+      }
+    }
+    new Ingestor(dataDir, CLEANER, AnswerGrouper.standard()).withEncoder(encoder).store(
+        new Ingestor.ParsedExport("CLINC150 " + scope + " train", train.size(), 0, train,
+            List.of(), List.of()),
+        new Progress("indexing", "tickets", progress),
+        new Progress("embedding", "questions", progress));
+    return Knowledge.open(dataDir).orElseThrow();
+  }
+
+  /** Share of in-scope tickets whose right answer the system ranked first, no threshold. */
+  static double inScopeTop1(List<EvaluatedTicket> tickets) {
+    long inScope = tickets.stream().filter(EvaluatedTicket::inScope).count();
+    return inScope == 0 ? Double.NaN
+        : tickets.stream().filter(e -> e.inScope() && e.rankOfRight() == 1).count()
+            / (double) inScope;
   }
 
   private static List<HeldOutQuestion> questions(Clinc150 clinc, String split,

@@ -63,6 +63,11 @@ public final class FusionFit {
   }
 
   public String summary() {
+    return summary(model);
+  }
+
+  /** A fitted model's validation figures, weights and calibration, in words. */
+  public static String summary(FusionModel model) {
     StringBuilder s = new StringBuilder("fusion split, out of fold:");
     model.validation().forEach((system, figures) -> {
       s.append(String.format(Locale.ROOT, "%n  %-22s", system));

@@ -65,6 +65,15 @@ public final class TeamModelTrainer {
    * change nothing.
    */
   public java.util.Optional<String> currentVersion(Knowledge knowledge) throws IOException {
+    return currentVersion(knowledge, rerankerPairs(knowledge));
+  }
+
+  /**
+   * As {@link #currentVersion(Knowledge)} for a model trained on {@code pairs} rather than the
+   * knowledge's own split (a benchmark that keeps its own validation set apart).
+   */
+  public java.util.Optional<String> currentVersion(Knowledge knowledge, List<TrainingPair> pairs)
+      throws IOException {
     ModelStore store = new ModelStore(dataDir.models());
     java.util.Optional<String> active = store.activeVersion();
     if (active.isEmpty()
@@ -80,8 +89,7 @@ public final class TeamModelTrainer {
     if (!denseMatches(knowledge, store.directory(active.get()))) {
       return java.util.Optional.empty();
     }
-    String fingerprint = org.precedent.engine.rerank.train.DataFingerprint.of(
-        rerankerPairs(knowledge));
+    String fingerprint = org.precedent.engine.rerank.train.DataFingerprint.of(pairs);
     return store.dataFingerprint(active.get()).filter(fingerprint::equals).map(f -> active.get());
   }
 
@@ -119,7 +127,7 @@ public final class TeamModelTrainer {
     try (Retriever retriever = Retriever.open(knowledge)) {
       Manifest.Vectors vectors = knowledge.manifest().vectors();
       if (vectors != null && retriever.hasVectors()) {
-        classifier = fitClassifier(knowledge, vectors, retriever.storedVectors());
+        classifier = fitClassifier(knowledge, vectors, retriever.storedVectors(), fusion);
       }
       try (DenseLeg dense = classifier == null ? null : DenseLeg.open(vectors, classifier)) {
         fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model(), 1), dense),
@@ -145,18 +153,21 @@ public final class TeamModelTrainer {
   }
 
   /**
-   * The dense leg's classifier, fitted on the questions the reranker learns from (grouped tickets
-   * outside the fusion split), so that fusion sees its probabilities on questions it was not
-   * fitted on, as a decision will.
+   * The dense leg's classifier, fitted on every grouped stored ticket that fusion does not ask
+   * (with the knowledge's own split, the reranker's tickets), so that fusion sees its probabilities
+   * on questions it was not fitted on, as a decision will. Fusion questions from outside the
+   * knowledge (a benchmark's validation set) leave every stored ticket to the classifier.
    */
   static AnswerClassifier fitClassifier(Knowledge knowledge, Manifest.Vectors encoder,
-      Map<String, QuestionVectors.Stored> stored) {
+      Map<String, QuestionVectors.Stored> stored, List<FusionQuestion> fusion) {
     Map<String, String> groupOf = knowledge.grouping().groupOfTicket();
+    java.util.Set<String> asked = new java.util.HashSet<>();
+    fusion.stream().filter(FusionQuestion::stored).forEach(q -> asked.add(q.ticketId()));
     List<float[]> vectors = new ArrayList<>();
     List<String> labels = new ArrayList<>();
     stored.forEach((ticket, v) -> {
       String group = groupOf.get(ticket);
-      if (group != null && !Splits.isFusionTicket(ticket)) {
+      if (group != null && !asked.contains(ticket)) {
         vectors.add(v.vector());
         labels.add(group);
       }

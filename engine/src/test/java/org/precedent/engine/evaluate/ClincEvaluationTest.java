@@ -37,5 +37,8 @@ class ClincEvaluationTest {
     assertArrayEquals(new double[] {2 / 3.0, 0.5}, ClincEvaluation.atThreshold(tickets, 0.6), 1e-12);
     // Best sum 1/3 + 1 = 1.333 first reached on the grid at 0.705; 2/3 + 1/2 = 1.167 is lower.
     assertEquals(0.705, ClincEvaluation.bestThreshold(tickets), 1e-12);
+    // Top-1 with no threshold counts in-scope tickets only (Larson et al. 2019 report in-scope
+    // accuracy over in-scope queries): 2 of the 3 rank the right answer first.
+    assertEquals(2 / 3.0, ClincEvaluation.inScopeTop1(tickets), 1e-12);
   }
 }
