@@ -15,6 +15,7 @@ import org.nd4j.linalg.factory.Nd4j;
 import org.nd4j.linalg.ops.transforms.Transforms;
 import org.precedent.engine.rerank.ModelLoadException;
 import org.precedent.knowledge.io.AtomicFiles;
+import org.precedent.knowledge.io.Progress;
 
 /**
  * Which answer group a question belongs to, from its frozen sentence-encoder vector alone: a
@@ -74,6 +75,12 @@ public record AnswerClassifier(String encoder, String encoderSha256, List<String
    */
   public static AnswerClassifier fit(String encoder, String encoderSha256, List<float[]> vectors,
       List<String> labels, double lambda) {
+    return fit(encoder, encoderSha256, vectors, labels, lambda, Progress.silent());
+  }
+
+  /** As above, reporting the steps done (with rate and time left) to {@code progress}. */
+  public static AnswerClassifier fit(String encoder, String encoderSha256, List<float[]> vectors,
+      List<String> labels, double lambda, Progress progress) {
     if (vectors.size() != labels.size() || vectors.isEmpty()) {
       throw new IllegalArgumentException(vectors.size() + " vectors for " + labels.size()
           + " labels");
@@ -123,11 +130,14 @@ public record AnswerClassifier(String encoder, String encoderSha256, List<String
     double rate = 0.05;
     double beta1 = 0.9;
     double beta2 = 0.999;
+    progress.total(STEPS);
     for (int step = 1; step <= STEPS; step++) {
       INDArray[] grad = gradient(xs, ys, w, b, lambda);
       adam(w, grad[0], mw, vw, rate, beta1, beta2, step);
       adam(b, grad[1], mb, vb, rate, beta1, beta2, step);
+      progress.update(step);
     }
+    progress.finish(STEPS);
     double[][] weights = w.toDoubleMatrix();
     double[] bias = b.toDoubleVector();
     return new AnswerClassifier(encoder, encoderSha256, groups, mean, scale, weights, bias, lambda);

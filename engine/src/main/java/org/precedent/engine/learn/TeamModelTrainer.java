@@ -175,6 +175,7 @@ public final class TeamModelTrainer {
     System.err.printf(java.util.Locale.ROOT, "fitting the answer classifier on %,d question "
         + "vectors of %s%n", vectors.size(), encoder.encoder());
     return AnswerClassifier.fit(encoder.encoder(), encoder.sha256(), vectors, labels,
-        AnswerClassifier.LAMBDA);
+        AnswerClassifier.LAMBDA, new org.precedent.knowledge.io.Progress(
+            "fitting the answer classifier", "steps", System.err));
   }
 }

@@ -59,13 +59,18 @@ class ClincBankingDecisionTest {
     assertTrue(fused.coverageAt95() >= bm25.coverageAt95(), "coverage at 95% precision");
   }
 
+  /** In-scope test queries of the banking domain (15 intents, 30 each; Larson et al. 2019). */
+  private static final int IN_SCOPE = 450;
+  /** Test queries measured: the in-scope ones and the first 300 out-of-scope test queries. */
+  private static final int MEASURED = IN_SCOPE + 300;
+
   /**
-   * With the dense leg (bge-small-en-v1.5, frozen): the published line on CLINC150 is BERT's 96.2%
-   * in-scope accuracy over all 150 intents (Larson et al. 2019, Table 2); a frozen encoder with a
-   * logistic regression on top came close to it on banking (0.969, {@code AnswerClassifierTest}).
-   * Here the whole decision, fused, must rank the right intent first at least that well less 0.02
-   * (a floor below the measured value, so that noise alone does not fail it), beat fusion without
-   * the dense leg (measured in the same run), and stay calibrated.
+   * With the dense leg (bge-small-en-v1.5, frozen). Floors are what this test measured on
+   * 2026-12-03 (fused and the cascade 0.976, dense alone 0.971 in-scope top-1; the cascade reranked
+   * 37.7% of questions) less two binomial standard errors of that share on the questions it counts
+   * (resampling noise, about 95% of draws), so that noise alone does not fail it while a lost point
+   * does. The published line on CLINC150 is BERT's 96.2% in-scope accuracy over all 150 intents
+   * (Larson et al. 2019, Table 2).
    */
   @Test
   void theDenseLegLiftsFusionAndStaysCalibrated() throws Exception {
@@ -75,13 +80,21 @@ class ClincBankingDecisionTest {
     var fused = r.measures(ScoringSystem.FUSED);
     var withoutReranker = r.measures(ScoringSystem.FUSED_WITHOUT_RERANKER);
     double inScopeFused = r.inScopeTop1(ScoringSystem.FUSED);
+    double inScopeDense = r.inScopeTop1(ScoringSystem.DENSE);
+    double inScopeCascade = r.inScopeTop1(ScoringSystem.CASCADE);
     System.out.printf(Locale.ROOT, "CLINC150 banking with the dense leg: in-scope top-1 fused "
-        + "%.3f, dense alone %.3f, BM25 alone %.3f, fused without reranker %.3f%n", inScopeFused,
-        r.inScopeTop1(ScoringSystem.DENSE), r.inScopeTop1(ScoringSystem.BM25),
+        + "%.3f, cascade %.3f, dense alone %.3f, BM25 alone %.3f, fused without reranker %.3f%n",
+        inScopeFused, inScopeCascade, inScopeDense, r.inScopeTop1(ScoringSystem.BM25),
         r.inScopeTop1(ScoringSystem.FUSED_WITHOUT_RERANKER));
     assertTrue(dense.top1() > bm25.top1(), "dense " + dense.top1() + " vs BM25 " + bm25.top1());
     assertTrue(fused.top1() >= bm25.top1(), "fused " + fused.top1() + " vs BM25 " + bm25.top1());
-    assertTrue(inScopeFused >= 0.969 - 0.02, "in-scope fused top-1 " + inScopeFused);
+    // Measured 0.976 on 2026-12-03, less two binomial standard errors on 450 queries.
+    assertTrue(inScopeFused >= below(0.976, IN_SCOPE), "in-scope fused top-1 " + inScopeFused);
+    // Measured 0.976 on 2026-12-03 (the deciding system), the same margin.
+    assertTrue(inScopeCascade >= below(0.976, IN_SCOPE), "in-scope cascade top-1 "
+        + inScopeCascade);
+    // Measured 0.971 on 2026-12-03, the same margin.
+    assertTrue(inScopeDense >= below(0.971, IN_SCOPE), "in-scope dense top-1 " + inScopeDense);
     assertTrue(fused.auroc() >= bm25.auroc(), "fused AUROC " + fused.auroc() + " vs BM25 "
         + bm25.auroc());
     assertTrue(withoutReranker.top1() > 0, "fused without the reranker is measured");
@@ -99,7 +112,9 @@ class ClincBankingDecisionTest {
         cascade.expectedCalibrationError());
     assertTrue(cascade.top1() >= fused.top1() - 0.01, "cascade " + cascade.top1() + " vs fused "
         + fused.top1());
-    assertTrue(runs > 0 && runs < 0.5, "reranker runs " + runs);
+    // Measured 0.377 on 2026-12-03, plus two binomial standard errors on the 750 questions.
+    assertTrue(runs > 0 && runs <= 0.377 + (0.377 - below(0.377, MEASURED)), "reranker runs "
+        + runs);
     assertTrue(cascade.expectedCalibrationError() <= consistencyNoise(r.run(ScoringSystem.CASCADE)
         .tickets().stream().map(t -> t.scored()).toList(), 1000, 0.95) + 0.05, "cascade ECE");
     assertTrue(r.sameAsDecisions(), "a decision runs the reranker and ranks as the evaluation "
@@ -218,6 +233,14 @@ class ClincBankingDecisionTest {
       }
     }
     return true;
+  }
+
+  /**
+   * A share measured on {@code n} questions less two binomial standard errors (about the 95% range
+   * of resampling noise; normal approximation).
+   */
+  static double below(double measured, int n) {
+    return measured - 2 * Math.sqrt(measured * (1 - measured) / n);
   }
 
   /** The {@code quantile} of ECE over {@code draws} outcome sets drawn from the confidences. */
