@@ -166,15 +166,26 @@ final class EvaluateCommand implements Callable<Integer> {
     }
   }
 
-  private void keep(PrintWriter w, ModelStore store, String version, InForce active,
-      org.precedent.engine.evaluate.EvaluationReport report, HeldOutEvaluation result)
+  /**
+   * The comparison of {@code version}, measured as {@code report}, with the version {@code
+   * active} holds, measured as {@code inForceReport}, on the held-out {@code file}.
+   */
+  static VersionComparison compared(ModelStore store, String version,
+      org.precedent.engine.evaluate.EvaluationReport report, InForce active,
+      org.precedent.engine.evaluate.EvaluationReport inForceReport, Path file)
       throws java.io.IOException {
     var basis = new VersionComparison.Basis(store.fingerprint(version),
         store.fingerprint(active.version()),
         active.knowledge().generation().getFileName().toString(),
         file.getFileName().toString(), AtomicFiles.sha256(file));
-    VersionComparison c = VersionComparison.of(version, report, active.version(),
-        result.report(), basis, Instant.now());
+    return VersionComparison.of(version, report, active.version(), inForceReport, basis,
+        Instant.now());
+  }
+
+  private void keep(PrintWriter w, ModelStore store, String version, InForce active,
+      org.precedent.engine.evaluate.EvaluationReport report, HeldOutEvaluation result)
+      throws java.io.IOException {
+    VersionComparison c = compared(store, version, report, active, result.report(), file);
     Path kept = VersionComparisons.write(store, c);
     w.println();
     Activations.lines(c).forEach(w::println);

@@ -31,7 +31,9 @@ import picocli.CommandLine.Spec;
             + "interrupted run.",
         "Answers agents accepted or edited and sent are added to the reranker's tickets, read "
             + "from the service's database in the data directory; while the service runs it "
-            + "holds that database, and training goes on without them."})
+            + "holds that database, and training goes on without them.",
+        "--without-reranker writes a version of the faster legs alone (no reranker), in "
+            + "seconds; a full version trained later is compared with it as any candidate is."})
 final class TrainCommand implements Callable<Integer> {
   @ParentCommand
   PrecedentCommand parent;
@@ -41,6 +43,12 @@ final class TrainCommand implements Callable<Integer> {
 
   @Option(names = "--resume", description = "Continue the last interrupted run.")
   boolean resume;
+
+  @Option(names = "--without-reranker", description = "Write a version without the reranker: "
+      + "the dense leg's classifier and fusion over BM25 and the dense leg only (BM25 alone "
+      + "without question vectors). Ready in seconds rather than minutes; decisions never run "
+      + "the reranker with it.")
+  boolean withoutReranker;
 
   @Option(names = "--activate", description = "Put the new version in force at once, without "
       + "a comparison (recorded in the model audit; refused while the service runs on the data "
@@ -92,13 +100,23 @@ final class TrainCommand implements Callable<Integer> {
         .withLearningRate(learningRate);
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
-    FeedbackTraining.Read feedback = FeedbackTraining.read(dataDir, knowledge);
-    out.println(feedback.summary());
-    out.flush();
-    List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge));
-    pairs.addAll(feedback.pairs());
-    TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, pairs,
-        TeamModelTrainer.fusionQuestions(knowledge), resume);
+    TrainingReport report;
+    if (withoutReranker) {
+      if (resume) {
+        throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+            "--resume continues a reranker's training; --without-reranker trains none");
+      }
+      // Feedback trains only the reranker, so a version without it does not read it.
+      report = new TeamModelTrainer(dataDir, config).trainWithoutReranker(knowledge);
+    } else {
+      FeedbackTraining.Read feedback = FeedbackTraining.read(dataDir, knowledge);
+      out.println(feedback.summary());
+      out.flush();
+      List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge));
+      pairs.addAll(feedback.pairs());
+      report = new TeamModelTrainer(dataDir, config).train(knowledge, pairs,
+          TeamModelTrainer.fusionQuestions(knowledge), resume);
+    }
     Path dir = dataDir.models().resolve(report.version());
     out.println(report.summary());
     if (report.activated()) {

@@ -78,7 +78,11 @@ class LauncherScriptTest {
     assertEquals(List.of("--data", "some dir", "serve", "--port", "9"),
         serve.subList(serve.indexOf("-jar") + 2, serve.size()));
 
-    for (List<String> args : List.of(List.of("train"), List.of("demo", "--no-serve"),
+    // The demo trains beside the service it starts: the service's heap.
+    List<String> demo = javaArguments(home, bin, null, "demo", "--no-serve");
+    assertTrue(demo.contains("-Xmx1g"), demo.toString());
+    assertTrue(demo.contains("-XX:MaxDirectMemorySize=128m"), demo.toString());
+    for (List<String> args : List.of(List.of("train"),
         List.of("--data=x", "benchmark", "service"))) {
       List<String> other = javaArguments(home, bin, null, args.toArray(String[]::new));
       assertTrue(other.contains("-Xmx4g"), args + ": " + other);

@@ -148,17 +148,7 @@ class ModelComparisonTest {
    */
   static void flatVersion(Path data, String name) throws Exception {
     Path dir = TestCopies.recalibrated(data, name, 0.0, 0.0);
-    Map<String, String> sums = new TreeMap<>();
-    try (var files = Files.list(dir)) {
-      for (Path f : files.toList()) {
-        if (Files.isRegularFile(f) && !f.getFileName().toString().equals("manifest.properties")) {
-          sums.put(f.getFileName().toString(), AtomicFiles.sha256(f));
-        }
-      }
-    }
-    StringBuilder manifest = new StringBuilder();
-    sums.forEach((file, sum) -> manifest.append(file).append('=').append(sum).append('\n'));
-    Files.writeString(dir.resolve("manifest.properties"), manifest);
+    VersionFixtures.remanifest(dir);
     new ModelStore(data.resolve("models")).verify(name);
   }
 

@@ -58,6 +58,11 @@ public final class RunningService implements AutoCloseable {
     return context.getBean(type);
   }
 
+  /** The service's application context: for code that acts inside the running service. */
+  public org.springframework.context.ApplicationContext context() {
+    return context;
+  }
+
   @Override
   public void close() {
     context.close();

@@ -37,11 +37,24 @@ public final class Assembly {
   /** As {@link #candidates(Retriever, Scorer, DenseLeg)}, the reranker asked for when needed. */
   static CandidateStages candidates(Retriever retriever, Supplier<Scorer> reranker,
       DenseLeg dense) {
+    if (reranker == null) {
+      reranker = () -> {
+        throw new IllegalStateException("this model version holds no reranker");
+      };
+    }
     if (dense == null) {
       return new CandidateStages(new Bm25Candidates(retriever), new RerankerScores(reranker));
     }
     return new CandidateStages(new HybridCandidates(retriever, dense.encoder()),
         new RerankerScores(reranker), dense::probabilities);
+  }
+
+  /**
+   * Stages one and two without a reranker (a version trained without one): asking them for the
+   * reranker's scores is an error.
+   */
+  public static CandidateStages candidatesWithoutReranker(Retriever retriever, DenseLeg dense) {
+    return candidates(retriever, (Supplier<Scorer>) null, dense);
   }
 
   /** Every stage, BM25 only, with a fitted fusion model, a safety policy and the thresholds. */
@@ -66,6 +79,10 @@ public final class Assembly {
   /** As above, the reranker asked for only when a decision needs it. */
   static Pipeline pipeline(Retriever retriever, Supplier<Scorer> reranker, DenseLeg dense,
       FusionModel fusion, SafetyPolicy safety, Thresholds thresholds, RerankerUse rerankerUse) {
+    if (fusion.reranker() && reranker == null) {
+      throw new IllegalArgumentException("the fusion model learnt from the reranker, so "
+          + "decisions need it");
+    }
     if (fusion.dense() != (dense != null)) {
       throw new IllegalArgumentException(fusion.dense()
           ? "the fusion model learnt from the dense leg, so decisions need it"

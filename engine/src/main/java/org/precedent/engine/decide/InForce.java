@@ -122,10 +122,11 @@ public final class InForce implements Closeable {
     // Every file of the version is checked before any is read: by loading the network, which
     // checks them all first, or on their own when the network waits for its first use (which
     // checks them again).
+    // A version trained without the reranker has no scorer: it decides with the faster legs.
     DeferredScorer scorer;
-    if (deferReranker) {
+    if (deferReranker || !store.hasReranker(version)) {
       store.verify(version);
-      scorer = new DeferredScorer(() -> {
+      scorer = !store.hasReranker(version) ? null : new DeferredScorer(() -> {
         beforeLoading.run();
         return new Scorer(store.load(version));
       });
@@ -135,6 +136,10 @@ public final class InForce implements Closeable {
       scorer = new DeferredScorer(loaded, System.nanoTime() - l0);
     }
     FusionModel fusion = FusionModel.load(store.directory(version));
+    if (fusion.reranker() && scorer == null) {
+      throw new ModelLoadException(store.directory(version).resolve("fusion.json") + ": learnt "
+          + "from the reranker, but model version " + version + " holds none (train again)");
+    }
     long t2 = System.nanoTime();
     // The encoder's session (native code, most of an opening's time) is made beside the index.
     long[] denseNanos = new long[1];
@@ -161,7 +166,7 @@ public final class InForce implements Closeable {
       SafetyPolicy safety = Files.exists(rules) ? SafetyPolicy.load(rules) : SafetyPolicy.defaults();
       return new InForce(knowledge, retriever, version, scorer, fusion, dense, safety,
           readThresholds(dir), SlotFields.read(dir.slotFields()), new OpenTimes(millis(t1 - t0),
-              millis(t3 - t2), millis(t2 - t1 - (deferReranker ? 0 : scorer.loadNanos())),
+              millis(t3 - t2), millis(t2 - t1 - (deferReranker || scorer == null ? 0 : scorer.loadNanos())),
               millis(denseNanos[0])));
     } catch (IOException | RuntimeException | InterruptedException e) {
       if (dense == null) {
@@ -221,7 +226,8 @@ public final class InForce implements Closeable {
    * loaded (opened with {@link #openRerankerOnFirstUse} and no decision needed it yet).
    */
   public java.util.OptionalLong rerankerLoad() {
-    return scorer.loaded() ? java.util.OptionalLong.of(millis(scorer.loadNanos()))
+    return scorer != null && scorer.loaded()
+        ? java.util.OptionalLong.of(millis(scorer.loadNanos()))
         : java.util.OptionalLong.empty();
   }
 
@@ -273,9 +279,21 @@ public final class InForce implements Closeable {
     return version;
   }
 
-  /** The reranker, loaded now if it was deferred. */
+  /**
+   * The reranker, loaded now if it was deferred.
+   *
+   * @throws IllegalStateException when the version holds no reranker ({@link #hasReranker})
+   */
   public Scorer scorer() {
+    if (scorer == null) {
+      throw new IllegalStateException("model version " + version + " holds no reranker");
+    }
     return scorer.get();
+  }
+
+  /** Whether the version holds a reranker; one trained without it decides with the faster legs. */
+  public boolean hasReranker() {
+    return scorer != null;
   }
 
   public FusionModel fusion() {

@@ -88,6 +88,11 @@ public final class Pipeline {
     return system == ScoringSystem.CASCADE ? !ranker.legsAgree(scoring) : system.usesReranker();
   }
 
+  /** Whether the model version holds a reranker: a version trained without one never runs it. */
+  public boolean hasReranker() {
+    return ranker.hasReranker();
+  }
+
   /** The system that decides: the last of {@link #systems()}. */
   public ScoringSystem decisionSystem() {
     return systems.get(systems.size() - 1);
@@ -228,8 +233,12 @@ public final class Pipeline {
             ThresholdDecimals.of(threshold), best.size()), parts), truncated);
   }
 
-  private static String rerankerNote(ScoringSystem system, CandidateScoring scoring,
+  private String rerankerNote(ScoringSystem system, CandidateScoring scoring,
       RerankerUse use) {
+    if (!ranker.hasReranker()) {
+      return "not run: this model version holds no reranker (trained without one); BM25"
+          + (system == ScoringSystem.BM25 ? " alone decides" : ", the dense leg and their fusion decide");
+    }
     if (system == ScoringSystem.CASCADE) {
       return scoring.reranked()
           ? "run: BM25, the dense leg and their fusion disagree on the first answer"

@@ -47,6 +47,22 @@ public record HeldOutEvaluation(EvaluationReport report, List<HeldOutQuestion> q
       EvaluationReport previous, Progress progress) throws IOException {
     List<HeldOutQuestion> questions = truth(active, heldOut.tickets());
     EvaluationReport report = measure(active, questions, dataset, target, progress);
+    return written(dataDir, questions, report, out, previous);
+  }
+
+  /**
+   * Writes the reports of a version already measured ({@link #measure}) as {@link #run} writes
+   * them: how a candidate measured beside the version in force becomes the latest report once it
+   * is in force, without measuring it again.
+   */
+  public static HeldOutEvaluation written(DataDir dataDir, InForce opened,
+      Ingestor.ParsedExport heldOut, EvaluationReport report, Path out, EvaluationReport previous)
+      throws IOException {
+    return written(dataDir, truth(opened, heldOut.tickets()), report, out, previous);
+  }
+
+  private static HeldOutEvaluation written(DataDir dataDir, List<HeldOutQuestion> questions,
+      EvaluationReport report, Path out, EvaluationReport previous) throws IOException {
     AtomicFiles.createPrivateDirectories(out);
     AtomicFiles.createPrivateDirectories(dataDir.reports());
     String stamp = DateTimeFormatter.ofPattern("yyyyMMdd-HHmmss").withZone(ZoneOffset.UTC)

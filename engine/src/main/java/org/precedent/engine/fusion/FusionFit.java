@@ -30,11 +30,28 @@ public final class FusionFit {
 
   /** @param candidates the stages before fusion, as the pipeline will run them */
   public static FusionFit fit(CandidateStages candidates, List<FusionQuestion> fusionQuestions) {
+    return fit(candidates, fusionQuestions, true);
+  }
+
+  /**
+   * Fits only the systems that need no reranker (BM25, and with a dense leg the dense system and
+   * fusion without the reranker), never asking the stages for reranker scores: the model a
+   * version without a reranker holds.
+   */
+  public static FusionFit fitWithoutReranker(CandidateStages candidates,
+      List<FusionQuestion> fusionQuestions) {
+    return fit(candidates, fusionQuestions, false);
+  }
+
+  private static FusionFit fit(CandidateStages candidates, List<FusionQuestion> fusionQuestions,
+      boolean reranker) {
     List<LabelledQuestion> questions = new ArrayList<>();
     Progress progress = new Progress("scoring the fusion split", "tickets", System.err)
         .total(fusionQuestions.size());
     for (FusionQuestion q : fusionQuestions) {
-      CandidateScoring scoring = candidates.score(q.question(), q.stored() ? q.ticketId() : null);
+      String excluded = q.stored() ? q.ticketId() : null;
+      CandidateScoring scoring = reranker ? candidates.score(q.question(), excluded)
+          : candidates.retrieve(q.question(), excluded);
       questions.add(new LabelledQuestion(q.ticketId(), q.rightGroup(), scoring));
       progress.update(questions.size());
     }
@@ -44,7 +61,9 @@ public final class FusionFit {
     // The dense leg's features are learnt from when the source embedded the questions.
     boolean dense = questions.stream().anyMatch(q -> q.scoring().retrieval().vector() != null);
     for (ScoringSystem system : ScoringSystem.values()) {
-      if (!system.fitted() || !system.applies(dense)) {
+      if (!system.fitted() || !system.applies(dense) || (!reranker && system.usesReranker())
+          // Without the dense leg or the reranker, fusion without the reranker is BM25 again.
+          || (!reranker && !dense && system == ScoringSystem.FUSED_WITHOUT_RERANKER)) {
         continue;
       }
       SystemFit fit = SystemFit.fit(system, dense, questions);
@@ -75,14 +94,16 @@ public final class FusionFit {
           ? String.format(Locale.ROOT, "  %s %,d", k, Math.round(v))
           : String.format(Locale.ROOT, "  %s %.3f", k, v)));
     });
-    SystemModel fused = model.system(ScoringSystem.FUSED);
-    s.append("\nfused weights (original units):");
+    // The fullest system the model has: fused, else fused without the reranker, else BM25.
+    List<ScoringSystem> fitted = model.fitted();
+    SystemModel fused = model.system(fitted.get(fitted.size() - 1));
+    s.append("\n" + fused.system().label() + " weights (original units):");
     double[] w = fused.model().weightsInOriginalUnits();
     for (int i = 0; i < w.length; i++) {
       s.append(String.format(Locale.ROOT, " %s %+.3f", fused.features().get(i), w[i]));
     }
-    s.append(String.format(Locale.ROOT, "%nPlatt calibration of the fused logit: A %.3f, B %.3f",
-        fused.calibration().a(), fused.calibration().b()));
+    s.append(String.format(Locale.ROOT, "%nPlatt calibration of the %s logit: A %.3f, B %.3f",
+        fused.system().label(), fused.calibration().a(), fused.calibration().b()));
     return s.toString();
   }
 

@@ -13,9 +13,9 @@ import org.precedent.knowledge.io.AtomicFiles;
  * The fitted fusion and calibration of a model version, one {@link SystemModel} per scoring system,
  * saved as {@code fusion.json} beside the reranker's weights.
  *
- * @param systems    the systems' fitted parts: BM25, the reranker and fused always; with a dense leg
- *                   the dense system too; fused without the reranker in models trained since it
- *                   was added
+ * @param systems    the systems' fitted parts: BM25 always; the reranker and fused unless the
+ *                   version holds no reranker; with a dense leg the dense system too; fused
+ *                   without the reranker in models trained since it was added
  * @param validation what the fit measured on the fusion split, per system, for reports
  */
 public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Double>> validation) {
@@ -26,8 +26,10 @@ public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Dou
     systems = List.copyOf(systems);
     // Kept in the systems' order, for reports.
     validation = java.util.Collections.unmodifiableMap(new java.util.LinkedHashMap<>(validation));
+    // A model without the reranker has none of its systems; one with it has both of them.
+    boolean reranker = systems.stream().anyMatch(m -> m.system().usesReranker());
     for (ScoringSystem s : ScoringSystem.ALWAYS) {
-      if (systems.stream().noneMatch(m -> m.system() == s)) {
+      if ((reranker || !s.usesReranker()) && systems.stream().noneMatch(m -> m.system() == s)) {
         throw new IllegalArgumentException("fusion model lacks the " + s + " system");
       }
     }
@@ -56,6 +58,11 @@ public record FusionModel(List<SystemModel> systems, Map<String, Map<String, Dou
   /** Whether the model learnt from the dense leg: decisions must then embed the question. */
   public boolean dense() {
     return has(ScoringSystem.DENSE);
+  }
+
+  /** Whether the model learnt from the reranker's scores, so that decisions may need them. */
+  public boolean reranker() {
+    return has(ScoringSystem.RERANKER);
   }
 
   /** The systems it has, in {@link ScoringSystem} order. */

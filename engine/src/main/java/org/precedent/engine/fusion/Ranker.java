@@ -40,8 +40,8 @@ public final class Ranker {
   public Ranked rank(ScoringSystem system, CandidateScoring scoring) {
     if (system == ScoringSystem.CASCADE) {
       if (!cascades()) {
-        throw new IllegalArgumentException("the cascade needs a model with a dense leg and "
-            + "fusion without the reranker");
+        throw new IllegalArgumentException("the cascade needs a model with a dense leg, "
+            + "fusion without the reranker and the reranker");
       }
       return rank(legsAgree(scoring) ? ScoringSystem.FUSED_WITHOUT_RERANKER : ScoringSystem.FUSED,
           scoring);
@@ -109,7 +109,13 @@ public final class Ranker {
 
   /** Whether the model has the two systems the cascade chooses between by the legs' agreement. */
   private boolean cascades() {
-    return fusion.has(ScoringSystem.DENSE) && fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER);
+    return fusion.has(ScoringSystem.DENSE) && fusion.has(ScoringSystem.FUSED_WITHOUT_RERANKER)
+        && fusion.has(ScoringSystem.FUSED);
+  }
+
+  /** Whether the model learnt from the reranker: a version without one never runs it. */
+  public boolean hasReranker() {
+    return fusion.reranker();
   }
 
   /** The fused system without the reranker, or BM25's in a model trained before it existed. */

@@ -76,21 +76,45 @@ public final class TeamModelTrainer {
       throws IOException {
     ModelStore store = new ModelStore(dataDir.models());
     java.util.Optional<String> active = store.activeVersion();
-    if (active.isEmpty()
-        || !java.nio.file.Files.exists(store.directory(active.get()).resolve("fusion.json"))) {
-      return java.util.Optional.empty();
+    return active.isPresent() && current(knowledge, pairs, store, active.get())
+        ? active : java.util.Optional.empty();
+  }
+
+  /**
+   * The newest version, in force or not, of the kind asked for (with the reranker or without it)
+   * that is current on the knowledge ({@link #currentVersion}): what a rerun finds already done.
+   */
+  public java.util.Optional<String> currentVersion(Knowledge knowledge, boolean withReranker)
+      throws IOException {
+    ModelStore store = new ModelStore(dataDir.models());
+    List<TrainingPair> pairs = rerankerPairs(knowledge);
+    List<String> versions = new ArrayList<>(store.versions());
+    java.util.Collections.reverse(versions);
+    for (String v : versions) {
+      if (current(knowledge, pairs, store, v) && store.hasReranker(v) == withReranker) {
+        return java.util.Optional.of(v);
+      }
+    }
+    return java.util.Optional.empty();
+  }
+
+  private boolean current(Knowledge knowledge, List<TrainingPair> pairs, ModelStore store,
+      String version)
+      throws IOException {
+    if (!java.nio.file.Files.exists(store.directory(version).resolve("fusion.json"))) {
+      return false;
     }
     try {
-      store.verify(active.get());
+      store.verify(version);
     } catch (org.precedent.engine.rerank.ModelLoadException e) {
       // Damaged, edited, or made by an earlier release: training again is the remedy.
-      return java.util.Optional.empty();
+      return false;
     }
-    if (!denseMatches(knowledge, store.directory(active.get()))) {
-      return java.util.Optional.empty();
+    if (!denseMatches(knowledge, store.directory(version))) {
+      return false;
     }
     String fingerprint = org.precedent.engine.rerank.train.DataFingerprint.of(pairs);
-    return store.dataFingerprint(active.get()).filter(fingerprint::equals).map(f -> active.get());
+    return store.dataFingerprint(version).filter(fingerprint::equals).isPresent();
   }
 
   /**
@@ -102,6 +126,30 @@ public final class TeamModelTrainer {
     AnswerClassifier classifier = AnswerClassifier.loadIfPresent(versionDir);
     return vectors == null ? classifier == null
         : classifier != null && vectors.sha256().equals(classifier.encoderSha256());
+  }
+
+  /**
+   * Writes a version without the reranker: the dense leg's classifier (when the knowledge holds
+   * question vectors) and fusion over the systems that need no reranker, fitted on the fusion
+   * split. Minutes sooner than a full version (no network is trained), so that decisions can start
+   * while the reranker trains. Active when no version is in force yet, else a candidate. Its
+   * fingerprint is that of the reranker pairs the knowledge gives, the tickets the classifier
+   * learns from, so that a rerun on the same tickets finds it done.
+   */
+  public TrainingReport trainWithoutReranker(Knowledge knowledge) throws IOException {
+    List<TrainingPair> pairs = rerankerPairs(knowledge);
+    List<FusionQuestion> fusion = fusionQuestions(knowledge);
+    Fitted fitted = fitWithDenseLeg(knowledge, fusion, (retriever, dense) ->
+        FusionFit.fitWithoutReranker(Assembly.candidatesWithoutReranker(retriever, dense), fusion));
+    ModelStore store = new ModelStore(dataDir.models());
+    String version = store.writeWithoutReranker(
+        org.precedent.engine.rerank.train.DataFingerprint.of(pairs), fitted::writeInto);
+    FusionFit fit = fitted.fit();
+    boolean first = store.activeVersion().isEmpty();
+    if (first) {
+      store.activate(version);
+    }
+    return new TrainingReport(version, first, null, fit.summary());
   }
 
   /** Trains on the knowledge's own split ({@link Splits}). */
@@ -122,27 +170,12 @@ public final class TeamModelTrainer {
     Path work = dataDir.models().resolve("training");
     RerankerTrainer trainer = new RerankerTrainer(config, work);
     TrainedReranker trained = resume ? trainer.resume(pairs) : trainer.train(pairs);
-    FusionFit fit;
-    AnswerClassifier classifier = null;
-    try (Retriever retriever = Retriever.open(knowledge)) {
-      Manifest.Vectors vectors = knowledge.manifest().vectors();
-      if (vectors != null && retriever.hasVectors()) {
-        classifier = fitClassifier(knowledge, vectors, retriever.storedVectors(), fusion);
-      }
-      try (DenseLeg dense = classifier == null ? null : DenseLeg.open(vectors, classifier)) {
-        fit = FusionFit.fit(Assembly.candidates(retriever, new Scorer(trained.model(), 1), dense),
-            fusion);
-      }
-    }
+    Fitted fitted = fitWithDenseLeg(knowledge, fusion, (retriever, dense) -> FusionFit.fit(
+        Assembly.candidates(retriever, new Scorer(trained.model(), 1), dense), fusion));
     // Fusion and the classifier are written with the version, so that its manifest covers them.
     ModelStore store = new ModelStore(dataDir.models());
-    AnswerClassifier dense = classifier;
-    String version = store.write(trained, dir -> {
-      fit.save(dir);
-      if (dense != null) {
-        dense.save(dir);
-      }
-    });
+    String version = store.write(trained, fitted::writeInto);
+    FusionFit fit = fitted.fit();
     // A version in force was measured and chosen: a new one earns its place by comparison
     // (evaluate, then an activation that shows it); only the first one goes in force at once.
     boolean first = store.activeVersion().isEmpty();
@@ -150,6 +183,37 @@ public final class TeamModelTrainer {
       store.activate(version);
     }
     return new TrainingReport(version, first, trained.metrics(), fit.summary());
+  }
+
+  /** Fits fusion over the index and, when the knowledge holds question vectors, the dense leg. */
+  private interface FusionFitter {
+    FusionFit fit(Retriever retriever, DenseLeg dense);
+  }
+
+  /** A fitted fusion and the dense leg's classifier it learnt with (null without vectors). */
+  private record Fitted(FusionFit fit, AnswerClassifier classifier) {
+    void writeInto(Path versionDir) throws IOException {
+      fit.save(versionDir);
+      if (classifier != null) {
+        classifier.save(versionDir);
+      }
+    }
+  }
+
+  /** The dense leg's classifier, when there are vectors, then fusion fitted with it. */
+  private static Fitted fitWithDenseLeg(Knowledge knowledge, List<FusionQuestion> fusion,
+      FusionFitter fitter)
+      throws IOException {
+    AnswerClassifier classifier = null;
+    try (Retriever retriever = Retriever.open(knowledge)) {
+      Manifest.Vectors vectors = knowledge.manifest().vectors();
+      if (vectors != null && retriever.hasVectors()) {
+        classifier = fitClassifier(knowledge, vectors, retriever.storedVectors(), fusion);
+      }
+      try (DenseLeg dense = classifier == null ? null : DenseLeg.open(vectors, classifier)) {
+        return new Fitted(fitter.fit(retriever, dense), classifier);
+      }
+    }
   }
 
   /**

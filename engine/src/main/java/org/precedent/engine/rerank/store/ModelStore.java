@@ -48,6 +48,10 @@ public final class ModelStore {
   static final String CONFIG = "config.properties";
   private static final String ANTI_LM_LAMBDA = "antiLmLambda";
   static final String METRICS = "metrics.json";
+  /** The key of {@value #METRICS} that says a version holds no reranker. */
+  private static final String RERANKER = "reranker";
+  /** The reranker's own files: every version that claims a reranker holds them. */
+  private static final List<String> RERANKER_FILES = List.of(WEIGHTS, VOCABULARY, CONFIG);
   static final String MANIFEST = "manifest.properties";
   /**
    * Where evaluations of a version against others are kept: written after the version is made, so
@@ -85,6 +89,13 @@ public final class ModelStore {
    * the manifest covers them all.
    */
   public String write(TrainedReranker trained, VersionFiles more) throws IOException {
+    return writeVersion(dir -> {
+      writeFiles(dir, trained);
+      more.writeInto(dir);
+    });
+  }
+
+  private String writeVersion(VersionFiles files) throws IOException {
     Files.createDirectories(root);
     Path staging = Files.createTempDirectory(root, ".staging-");
     try {
@@ -95,8 +106,7 @@ public final class ModelStore {
       } catch (UnsupportedOperationException e) {
         // not a POSIX file system: keep its default
       }
-      writeFiles(staging, trained);
-      more.writeInto(staging);
+      files.writeInto(staging);
       writeManifest(staging);
       while (true) {
         String version = nextVersion();
@@ -110,6 +120,40 @@ public final class ModelStore {
     } finally {
       AtomicFiles.deleteTree(staging);
     }
+  }
+
+  /**
+   * Saves a version that holds no reranker: {@code more} files (fusion, the dense leg's
+   * classifier) and a {@value #METRICS} that says so ({@code "reranker": false}) beside the
+   * fingerprint of the tickets it learnt from; the manifest covers exactly those files. Such a
+   * version decides with the faster legs alone, ready long before a reranker is trained.
+   */
+  public String writeWithoutReranker(String dataFingerprint, VersionFiles more)
+      throws IOException {
+    return writeVersion(dir -> {
+      Map<String, Object> metrics = new LinkedHashMap<>();
+      metrics.put("savedAt", Instant.now().toString());
+      metrics.put("dataSha256", dataFingerprint);
+      metrics.put(RERANKER, false);
+      Files.writeString(dir.resolve(METRICS), new ObjectMapper()
+          .enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(metrics),
+          StandardCharsets.UTF_8);
+      more.writeInto(dir);
+    });
+  }
+
+  /**
+   * Whether a version holds a reranker: every version does unless its {@value #METRICS} says
+   * {@code "reranker": false} (versions made before such versions existed say nothing, and all
+   * hold one).
+   */
+  public boolean hasReranker(String version) throws IOException {
+    Path metrics = directory(version).resolve(METRICS);
+    if (!Files.isRegularFile(metrics)) {
+      return true;
+    }
+    var node = new ObjectMapper().readTree(metrics.toFile()).get(RERANKER);
+    return node == null || !node.isBoolean() || node.booleanValue();
   }
 
   /** Makes {@code version} the active one, once every file of it is checked. */
@@ -201,6 +245,10 @@ public final class ModelStore {
    */
   public RerankerModel load(String version) throws IOException {
     verify(version);
+    if (!hasReranker(version)) {
+      throw new ModelLoadException("model version " + version + " holds no reranker (it was "
+          + "trained without one: 'precedent train --without-reranker')");
+    }
     return read(directory(version));
   }
 
@@ -248,6 +296,17 @@ public final class ModelStore {
       if (!AtomicFiles.sha256(path).equals(manifest.getProperty(file).strip())) {
         throw new ModelLoadException("model file " + path + " is corrupt or truncated, or was "
             + "changed after the version was made (its SHA-256 differs from " + MANIFEST + ")");
+      }
+    }
+    // Read only now that metrics.json is known to be the file the version was made with.
+    if (hasReranker(version)) {
+      for (String file : RERANKER_FILES) {
+        if (manifest.getProperty(file) == null) {
+          throw new ModelLoadException("model file " + dir.resolve(file) + " is missing: "
+              + version + " holds a reranker (its " + METRICS + " does not say \"" + RERANKER
+              + "\": false), whose files are " + String.join(", ", RERANKER_FILES)
+              + "; train again ('precedent train')");
+        }
       }
     }
   }
