@@ -83,6 +83,12 @@ final class TrainCommand implements Callable<Integer> {
       description = "Adam learning rate (default ${DEFAULT-VALUE}).", defaultValue = "0.005")
   double learningRate;
 
+  @Option(names = "--self-normalization", paramLabel = "ALPHA",
+      description = "Train the reranker's output layer self-normalised with this weight of the "
+          + "(log Z)^2 penalty, so that scoring reads only the answer words' logits; 0 trains plain "
+          + "softmax with exact scores (default ${DEFAULT-VALUE}).", defaultValue = "0")
+  double selfNormalization;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -97,7 +103,8 @@ final class TrainCommand implements Callable<Integer> {
         .withVocabulary(vocabulary, RerankerConfig.defaults().minCount())
         .withEpochs(epochs, RerankerConfig.defaults().patience())
         .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
-        .withLearningRate(learningRate);
+        .withLearningRate(learningRate)
+        .withSelfNormalization(selfNormalization);
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
     TrainingReport report;

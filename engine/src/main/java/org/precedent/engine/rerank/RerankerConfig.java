@@ -21,10 +21,14 @@ import org.precedent.engine.rerank.net.NetworkSettings;
  * @param validationShare   share of pairs held out for early stopping and for choosing the anti-LM weight
  * @param unconditionalShare share of pairs shown once more per epoch with an empty question, so the same
  *                          network also learns P(answer) for the anti-LM term
+ * @param selfNormalization weight alpha of the (log Z)^2 penalty the output layer is trained with
+ *                          ({@link org.precedent.engine.rerank.net.SelfNormalizedLoss}); above 0 the
+ *                          version scores each answer token by its logit alone. 0: plain softmax, exact
+ *                          scores (every version made before the setting existed)
  */
 public record RerankerConfig(int embedding, int hidden, int maxQuestionTokens, int maxAnswerTokens, int vocabCap,
     int minCount, int batchSize, double learningRate, int maxEpochs, int patience, double clipNorm, long seed,
-    double validationShare, double unconditionalShare) {
+    double validationShare, double unconditionalShare, double selfNormalization) {
 
   public RerankerConfig {
     positive("embedding", embedding);
@@ -47,6 +51,9 @@ public record RerankerConfig(int embedding, int hidden, int maxQuestionTokens, i
     if (!(unconditionalShare >= 0 && unconditionalShare <= 1)) {
       throw new IllegalArgumentException("unconditionalShare must be in [0, 1], was " + unconditionalShare);
     }
+    if (!(selfNormalization >= 0) || Double.isInfinite(selfNormalization)) {
+      throw new IllegalArgumentException("selfNormalization must be 0 or more, was " + selfNormalization);
+    }
   }
 
   /**
@@ -59,47 +66,69 @@ public record RerankerConfig(int embedding, int hidden, int maxQuestionTokens, i
    * epochs the validation loss that 2e-3 reached in 12 (0.12 nats per token), measured here.
    */
   public static RerankerConfig defaults() {
-    return new RerankerConfig(64, 128, 48, 48, 4000, 2, 32, 5e-3, 30, 3, 5.0, 42L, 0.1, 0.1);
+    return new RerankerConfig(64, 128, 48, 48, 4000, 2, 32, 5e-3, 30, 3, 5.0, 42L, 0.1, 0.1, 0.0);
   }
 
   public RerankerConfig withSizes(int embedding, int hidden) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
   }
 
   public RerankerConfig withEpochs(int maxEpochs, int patience) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
   }
 
   public RerankerConfig withBatchSize(int batchSize) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
   }
 
   public RerankerConfig withVocabulary(int vocabCap, int minCount) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
   }
 
   public RerankerConfig withSeed(long seed) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
   }
 
   public RerankerConfig withLearningRate(double learningRate) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
   }
 
   public RerankerConfig withMaxTokens(int maxQuestionTokens, int maxAnswerTokens) {
     return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
-        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare);
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, selfNormalization);
+  }
+
+  /** The same with the output layer trained self-normalised at weight {@code alpha} (0: plain softmax). */
+  public RerankerConfig withSelfNormalization(double alpha) {
+    return new RerankerConfig(embedding, hidden, maxQuestionTokens, maxAnswerTokens, vocabCap, minCount, batchSize,
+        learningRate, maxEpochs, patience, clipNorm, seed, validationShare, unconditionalShare, alpha);
+  }
+
+  /** The key of {@link #selfNormalization} in {@code config.properties}. */
+  public static final String SELF_NORMALIZATION = "selfNormalization";
+
+  /**
+   * A configuration read from a version's or a checkpoint's properties, strictly as {@link
+   * PropertiesRecords#toRecord} reads, except that a file written before {@link #selfNormalization}
+   * existed (no such key) reads as 0: those networks were trained with plain softmax and keep their
+   * exact scores.
+   */
+  public static RerankerConfig fromProperties(java.util.Properties properties, java.nio.file.Path file) {
+    java.util.Properties copy = new java.util.Properties();
+    copy.putAll(properties);
+    copy.putIfAbsent(SELF_NORMALIZATION, "0.0");
+    return PropertiesRecords.toRecord(copy, RerankerConfig.class, file);
   }
 
   /** What the network is built from: its sizes, the weight seed, Adam's step and the clipping norm. */
   public NetworkSettings network(int vocabularySize) {
-    return new NetworkSettings(embedding, hidden, vocabularySize, seed, learningRate, clipNorm);
+    return new NetworkSettings(embedding, hidden, vocabularySize, seed, learningRate, clipNorm, selfNormalization);
   }
 
   private static void positive(String name, int value) {

@@ -29,7 +29,7 @@ class PropertiesRecordsTest {
     // component, each value in Java's own text form (Double.toString, Long.toString).
     Properties p = new Properties();
     p.load(new StringReader(PropertiesRecords.text(config, "reranker configuration")));
-    assertEquals(14, p.size(), p.toString());
+    assertEquals(15, p.size(), p.toString());
     assertEquals(Double.toString(config.learningRate()), p.getProperty("learningRate"));
     assertEquals("-7", p.getProperty("seed"));
     assertEquals("16", p.getProperty("hidden"));
@@ -41,6 +41,24 @@ class PropertiesRecordsTest {
     assertRefusedNaming(write(dir, "batchSize", "0"), "batchSize"); // parses, the record refuses it
     assertRefusedNaming(write(dir, "hidden", null), "hidden"); // missing
     assertRefusedNaming(write(dir, "hiden", "16"), "hiden"); // unknown (a misspelt key)
+  }
+
+  @Test
+  void aConfigurationWrittenBeforeSelfNormalizationReadsAsPlainSoftmax(@TempDir Path dir) throws Exception {
+    Path file = dir.resolve("config.properties");
+    RerankerConfig trained = config.withSelfNormalization(0.1);
+    Properties p = PropertiesRecords.toProperties(trained);
+    assertEquals(trained, RerankerConfig.fromProperties(p, file));
+    p.remove(RerankerConfig.SELF_NORMALIZATION); // as every version made before the setting existed
+    assertEquals(config, RerankerConfig.fromProperties(p, file));
+    assertEquals(0.0, RerankerConfig.fromProperties(p, file).selfNormalization());
+    p.setProperty(RerankerConfig.SELF_NORMALIZATION, "-0.1");
+    assertNames(assertThrows(ModelLoadException.class, () -> RerankerConfig.fromProperties(p, file)), file,
+        "selfNormalization");
+    p.setProperty(RerankerConfig.SELF_NORMALIZATION, "0.1");
+    p.setProperty("selfNormalisation", "0.1"); // still strict about every other key
+    assertNames(assertThrows(ModelLoadException.class, () -> RerankerConfig.fromProperties(p, file)), file,
+        "selfNormalisation");
   }
 
   @Test

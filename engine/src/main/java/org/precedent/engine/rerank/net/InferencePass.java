@@ -7,6 +7,7 @@ import org.nd4j.linalg.api.ndarray.INDArray;
 import org.nd4j.linalg.api.ops.impl.transforms.custom.SoftMax;
 import org.nd4j.linalg.factory.Nd4j;
 import org.nd4j.linalg.indexing.NDArrayIndex;
+import org.nd4j.linalg.ops.transforms.Transforms;
 import org.precedent.engine.rerank.tokens.Vocabulary;
 
 /**
@@ -66,6 +67,15 @@ public final class InferencePass {
   private final INDArray contextOutput; // [H][V] its rows for the attention's output
   private final INDArray outputBias;    // [1][V]
   private final int head;
+  private final boolean selfNormalized;
+  private final float[] targetRows;     // [V][2H] the output layer's column per word, decoder half then context half
+  private final float[] targetBias;     // [V]
+
+  /**
+   * The system property that makes a self-normalised version score exactly (the whole vocabulary's
+   * product and softmax, as a plain version does), to measure what the approximation changes.
+   */
+  public static final String EXACT_PROPERTY = "precedent.reranker.exact";
 
   private InferencePass(ComputationGraph graph) {
     INDArray questionEmbedding = param(graph, Seq2SeqReranker.QUESTION_EMBEDDING, "W");
@@ -96,6 +106,9 @@ public final class InferencePass {
     contextOutput = output.get(NDArrayIndex.interval(hidden, 2 * hidden), NDArrayIndex.all()).dup('c');
     outputBias = param(graph, Seq2SeqReranker.OUTPUT, "b").castTo(DataType.FLOAT).dup('c')
         .reshape(1, vocabulary);
+    selfNormalized = Seq2SeqReranker.selfNormalization(graph) > 0;
+    targetRows = selfNormalized ? rowMajor(output.transpose()) : null;
+    targetBias = selfNormalized ? rowMajor(outputBias) : null;
     if (output.size(1) != vocabulary || wq.size(0) != 1) {
       throw new IllegalArgumentException("network does not have the reranker's shape: output "
           + output.size(1) + " wide for a vocabulary of " + vocabulary + ", " + wq.size(0) + " heads");
@@ -105,6 +118,19 @@ public final class InferencePass {
   /** Reads the parameters of a reranker network made by {@link Seq2SeqReranker#create}. */
   public static InferencePass of(ComputationGraph graph) {
     return new InferencePass(graph);
+  }
+
+  /**
+   * Whether the network was trained self-normalised, so that {@link #logLikelihoods} reads each
+   * target word's logit as its log-probability unless asked for exact scores.
+   */
+  public boolean selfNormalized() {
+    return selfNormalized;
+  }
+
+  /** Whether {@value #EXACT_PROPERTY} asks for exact scores of self-normalised versions. */
+  public static boolean exactRequested() {
+    return Boolean.parseBoolean(System.getProperty(EXACT_PROPERTY, "false").strip());
   }
 
   /** The vocabulary size the network was trained with. */
@@ -132,15 +158,28 @@ public final class InferencePass {
     private final int steps;
     private final float[] stateGates; // [4H] the encoder's last state · decoder W[E,E+H)
     private final float[] keys;       // [T][H] Wq^T Wk enc_j / sqrt(D)
-    private final INDArray outputRows; // [H+T][V]: the output layer's decoder half, then per
-                                       // question token output W[H,2H)^T Wo^T Wv enc_j
+    private final float[] contexts;   // [T][H] Wo Wv enc_j: the attention's output is their weighted sum
 
-    private EncodedQuestion(int steps, float[] stateGates, float[] keys, INDArray outputRows) {
+    private EncodedQuestion(int steps, float[] stateGates, float[] keys, float[] contexts) {
       this.steps = steps;
       this.stateGates = stateGates;
       this.keys = keys;
-      this.outputRows = outputRows;
+      this.contexts = contexts;
     }
+  }
+
+  /**
+   * [H+T][V]: the output layer's decoder half, then per question token output W[H,2H)^T Wo^T Wv
+   * enc_j, so that one product gives every word's logit. Made only for exact scores: it is a
+   * vocabulary-wide product per question, which self-normalised scores do without.
+   */
+  private INDArray outputRows(EncodedQuestion question) {
+    int steps = question.steps;
+    INDArray stacked = Nd4j.create(DataType.FLOAT, hidden + steps, vocabulary);
+    stacked.get(NDArrayIndex.interval(0, hidden), NDArrayIndex.all()).assign(decoderOutput);
+    stacked.get(NDArrayIndex.interval(hidden, hidden + steps), NDArrayIndex.all())
+        .assign(Nd4j.create(question.contexts, new long[] {steps, hidden}, 'c').mmul(contextOutput));
+    return stacked;
   }
 
   /** Encodes a question's ids (as {@link PairCodec#question} gives them, end token included). */
@@ -185,12 +224,7 @@ public final class InferencePass {
         contexts[j * hidden + m] = (float) sum;
       }
     }
-    // each value through the output layer's context half: a vocabulary row per question token
-    INDArray stacked = Nd4j.create(DataType.FLOAT, hidden + steps, vocabulary);
-    stacked.get(NDArrayIndex.interval(0, hidden), NDArrayIndex.all()).assign(decoderOutput);
-    stacked.get(NDArrayIndex.interval(hidden, hidden + steps), NDArrayIndex.all())
-        .assign(Nd4j.create(contexts, new long[] {steps, hidden}, 'c').mmul(contextOutput));
-    return new EncodedQuestion(steps, stateGates, keys, stacked);
+    return new EncodedQuestion(steps, stateGates, keys, contexts);
   }
 
   /**
@@ -202,8 +236,109 @@ public final class InferencePass {
     return logLikelihoods(question, List.of(answer))[0];
   }
 
-  /** {@link #logLikelihood} of each answer, with one output-layer product for them all. */
+  /**
+   * {@link #logLikelihood} of each answer: exact for a plain version, or when {@value
+   * #EXACT_PROPERTY} is set; for a self-normalised one the sum of the target words' logits.
+   */
   public double[] logLikelihoods(EncodedQuestion question, List<int[]> answers) {
+    return logLikelihoods(question, answers, !selfNormalized || exactRequested());
+  }
+
+  /**
+   * {@link #logLikelihood} of each answer. Exact: one output-layer product over the whole
+   * vocabulary for every step of them all, and its softmax. Otherwise (a self-normalised version
+   * only): log P(token) read as the token's logit z_y, its output column times the decoder state
+   * and the attention's output plus its bias, 2H multiply-adds a step instead of (H+T)V; the
+   * training penalty kept log Z near 0, and what is left of it is the approximation's error
+   * ({@link #logNormalizers} measures it).
+   */
+  public double[] logLikelihoods(EncodedQuestion question, List<int[]> answers, boolean exact) {
+    if (!exact && !selfNormalized) {
+      throw new IllegalStateException("only a self-normalised network scores by logits alone");
+    }
+    float[] inputs = stepInputs(question, answers);
+    int rows = inputs.length / (hidden + question.steps);
+    return exact ? exactSums(question, answers, inputs, rows) : logitSums(question, answers, inputs);
+  }
+
+  /**
+   * log Z of every target step of the answers, Z the sum of exp of the vocabulary's logits (the
+   * softmax's normaliser; 0 is a perfectly self-normalised step), in the answers' order.
+   */
+  public double[] logNormalizers(EncodedQuestion question, List<int[]> answers) {
+    float[] inputs = stepInputs(question, answers);
+    int rows = inputs.length / (hidden + question.steps);
+    INDArray logits = logits(question, inputs, rows);
+    INDArray max = logits.max(true, 1);
+    INDArray z = Transforms.log(Transforms.exp(logits.subColumnVector(max), false).sum(true, 1), false)
+        .addi(max);
+    return z.castTo(DataType.DOUBLE).data().asDouble();
+  }
+
+  private INDArray logits(EncodedQuestion question, float[] inputs, int rows) {
+    INDArray logits = Nd4j.create(inputs, new long[] {rows, hidden + question.steps}, 'c')
+        .mmul(outputRows(question));
+    logits.addiRowVector(outputBias);
+    return logits;
+  }
+
+  private double[] exactSums(EncodedQuestion question, List<int[]> answers, float[] inputs, int rows) {
+    // the output layer for every step at once, and the softmax DL4J's output layer applies
+    INDArray logits = logits(question, inputs, rows);
+    Nd4j.getExecutioner().exec(new SoftMax(logits, logits)); // in place, as DL4J's softmax activation
+    INDArray probabilities = logits;
+    double[] out = new double[answers.size()];
+    int row = 0;
+    for (int i = 0; i < answers.size(); i++) {
+      int[] answer = answers.get(i);
+      double total = 0;
+      for (int t = 0; t <= answer.length; t++, row++) {
+        int target = t == answer.length ? Vocabulary.END_ID : checked(answer[t]);
+        total += LogLikelihoods.logOf(probabilities.getFloat(row, target));
+      }
+      out[i] = total;
+    }
+    return out;
+  }
+
+  /** The floor {@link LogLikelihoods#logOf} puts under an exact log-probability, kept for logits too. */
+  private static final double LOG_FLOOR = Math.log(LogLikelihoods.MIN_PROBABILITY);
+
+  private double[] logitSums(EncodedQuestion question, List<int[]> answers, float[] inputs) {
+    int q = question.steps;
+    int width = hidden + q;
+    int twoH = 2 * hidden;
+    float[] context = new float[hidden];
+    double[] out = new double[answers.size()];
+    int row = 0;
+    for (int i = 0; i < answers.size(); i++) {
+      int[] answer = answers.get(i);
+      double total = 0;
+      for (int t = 0; t <= answer.length; t++, row++) {
+        int target = t == answer.length ? Vocabulary.END_ID : checked(answer[t]);
+        int at = row * width;
+        // the attention's output: its weights (after the decoder state in the row) over the contexts
+        java.util.Arrays.fill(context, 0f);
+        for (int j = 0; j < q; j++) {
+          axpy(context, 0, inputs[at + hidden + j], question.contexts, j * hidden, hidden);
+        }
+        int column = target * twoH;
+        double logit = targetBias[target];
+        for (int n = 0; n < hidden; n++) {
+          logit += inputs[at + n] * targetRows[column + n] + context[n] * targetRows[column + hidden + n];
+        }
+        total += Math.max(logit, LOG_FLOOR);
+      }
+      out[i] = total;
+    }
+    return out;
+  }
+
+  /**
+   * The output layer's input for every target step of the answers, one row each: the decoder's
+   * state [H], then the attention's weights over the question's steps [T].
+   */
+  private float[] stepInputs(EncodedQuestion question, List<int[]> answers) {
     int q = question.steps;
     int width = hidden + q;
     int rows = 0;
@@ -248,23 +383,7 @@ public final class InferencePass {
         }
       }
     }
-    // the output layer for every step at once, and the softmax DL4J's output layer applies
-    INDArray logits = Nd4j.create(inputs, new long[] {rows, width}, 'c').mmul(question.outputRows);
-    logits.addiRowVector(outputBias);
-    Nd4j.getExecutioner().exec(new SoftMax(logits, logits)); // in place, as DL4J's softmax activation
-    INDArray probabilities = logits;
-    double[] out = new double[answers.size()];
-    row = 0;
-    for (int i = 0; i < answers.size(); i++) {
-      int[] answer = answers.get(i);
-      double total = 0;
-      for (int t = 0; t <= answer.length; t++, row++) {
-        int target = t == answer.length ? Vocabulary.END_ID : checked(answer[t]);
-        total += LogLikelihoods.logOf(probabilities.getFloat(row, target));
-      }
-      out[i] = total;
-    }
-    return out;
+    return inputs;
   }
 
   /** One LSTM step: {@code pre} holds the input part of the gates and receives the recurrent part. */

@@ -2,6 +2,8 @@ package org.precedent.engine.rerank.net;
 
 import org.deeplearning4j.nn.graph.ComputationGraph;
 import org.nd4j.linalg.api.ndarray.INDArray;
+import org.nd4j.linalg.api.ops.impl.transforms.custom.SoftMax;
+import org.nd4j.linalg.factory.Nd4j;
 
 /**
  * Log-likelihoods of the target tokens of a batch, read from the network's softmax output.
@@ -19,9 +21,18 @@ public final class LogLikelihoods {
 
   private LogLikelihoods() {}
 
-  /** One forward pass, inference mode; returns the output [rows, vocabulary, steps]. */
+  /**
+   * One forward pass, inference mode; returns the probabilities [rows, vocabulary, steps]. A
+   * self-normalised network outputs logits; they are normalised here by the exact softmax over the
+   * vocabulary (ND4J's, the op the plain network's output layer applies), so this stays the
+   * reference for both kinds.
+   */
   public static INDArray forward(ComputationGraph graph, EncodedBatch batch) {
-    return graph.output(false, batch.inputs(), batch.inputMasks())[0];
+    INDArray out = graph.output(false, batch.inputs(), batch.inputMasks())[0];
+    if (Seq2SeqReranker.selfNormalization(graph) > 0) {
+      Nd4j.getExecutioner().exec(new SoftMax(out, out, 1));
+    }
+    return out;
   }
 
   /** Sum over each row's target tokens (answer tokens and the end token) of log P(token). */

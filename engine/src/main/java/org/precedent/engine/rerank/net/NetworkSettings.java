@@ -12,9 +12,11 @@ package org.precedent.engine.rerank.net;
  * @param seed           seeds the initial weights
  * @param learningRate   Adam step size
  * @param clipNorm       L2 norm above which each layer's gradient is scaled down
+ * @param selfNormalization weight of the output layer's (log Z)^2 penalty ({@link SelfNormalizedLoss});
+ *                       0 is plain softmax cross-entropy
  */
 public record NetworkSettings(int embedding, int hidden, int vocabularySize, long seed, double learningRate,
-    double clipNorm) {
+    double clipNorm, double selfNormalization) {
 
   public NetworkSettings {
     if (embedding <= 0 || hidden <= 0 || vocabularySize <= 0) {
@@ -24,6 +26,9 @@ public record NetworkSettings(int embedding, int hidden, int vocabularySize, lon
     if (!(learningRate > 0) || !(clipNorm > 0)) {
       throw new IllegalArgumentException("learningRate and clipNorm must be positive; got " + learningRate
           + " and " + clipNorm);
+    }
+    if (!(selfNormalization >= 0) || Double.isInfinite(selfNormalization)) {
+      throw new IllegalArgumentException("selfNormalization must be 0 or more; got " + selfNormalization);
     }
   }
 }

@@ -91,14 +91,37 @@ public final class Seq2SeqReranker {
             .nInQueries(h).nInKeys(h).nInValues(h).nOut(h).nHeads(1).projectInput(true).build(),
             DECODER, ENCODER, ENCODER)
         .addVertex("decoderAndContext", new MergeVertex(), DECODER, ATTENTION)
-        .addLayer(OUTPUT, new RnnOutputLayer.Builder(new LossSparseMCXENT())
-            .nIn(2L * h).nOut(vocabularySize).activation(Activation.SOFTMAX).dataFormat(RNNFormat.NCW).build(),
-            "decoderAndContext")
+        .addLayer(OUTPUT, outputLayer(settings, 2 * h), "decoderAndContext")
         .setOutputs(OUTPUT)
         .build();
     ComputationGraph graph = new ComputationGraph(conf);
     graph.init();
     return graph;
+  }
+
+  /**
+   * Softmax with cross-entropy, or, for a self-normalised network, the identity with {@link
+   * SelfNormalizedLoss}: its output is then the logits, which {@link LogLikelihoods#forward} turns
+   * into the same probabilities.
+   */
+  private static RnnOutputLayer outputLayer(NetworkSettings settings, int nIn) {
+    double alpha = settings.selfNormalization();
+    RnnOutputLayer.Builder builder = alpha > 0
+        ? new RnnOutputLayer.Builder(new SelfNormalizedLoss(alpha)).activation(Activation.IDENTITY)
+        : new RnnOutputLayer.Builder(new LossSparseMCXENT()).activation(Activation.SOFTMAX);
+    return builder.nIn(nIn).nOut(settings.vocabularySize()).dataFormat(RNNFormat.NCW).build();
+  }
+
+  /**
+   * The weight of the self-normalisation penalty the network's output layer was built with, 0 when
+   * it is plain softmax (then its output is probabilities, else logits).
+   */
+  public static double selfNormalization(ComputationGraph graph) {
+    var layer = graph.getLayer(OUTPUT).conf().getLayer();
+    if (layer instanceof RnnOutputLayer output && output.getLossFn() instanceof SelfNormalizedLoss loss) {
+      return loss.getAlpha();
+    }
+    return 0;
   }
 
   /** The vocabulary size a network was built for (rows of its question embedding). */

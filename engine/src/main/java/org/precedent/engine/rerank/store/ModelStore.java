@@ -345,7 +345,7 @@ public final class ModelStore {
     // The anti-LM weight, chosen after training, sits beside the configuration the network was built
     // with; versions without it score with log P(a|q) alone.
     double lambda = PropertiesRecords.takeDouble(config, ANTI_LM_LAMBDA, 0.0, configFile);
-    RerankerConfig rerankerConfig = PropertiesRecords.toRecord(config, RerankerConfig.class, configFile);
+    RerankerConfig rerankerConfig = RerankerConfig.fromProperties(config, configFile);
     ComputationGraph graph;
     try {
       graph = ModelSerializer.restoreComputationGraph(dir.resolve(WEIGHTS).toFile(), false);

@@ -66,7 +66,8 @@ final class Checkpoints {
   }
 
   RerankerConfig loadConfig() throws IOException {
-    return PropertiesRecords.read(dir.resolve(CONFIG), RerankerConfig.class);
+    Path file = dir.resolve(CONFIG);
+    return RerankerConfig.fromProperties(PropertiesRecords.load(file), file);
   }
 
   Vocabulary loadVocabulary() throws IOException {
