@@ -51,8 +51,9 @@ final class TrainCommand implements Callable<Integer> {
       description = "Why, for the model audit, with --activate.")
   String reason;
 
+  // RerankerConfig.defaults().maxEpochs(), measured there.
   @Option(names = "--epochs", paramLabel = "N", description = "Most epochs (default ${DEFAULT-VALUE}).",
-      defaultValue = "8")
+      defaultValue = "4")
   int epochs;
 
   @Option(names = "--hidden", paramLabel = "N", description = "LSTM size (default ${DEFAULT-VALUE}).",
@@ -75,6 +76,15 @@ final class TrainCommand implements Callable<Integer> {
       description = "Adam learning rate (default ${DEFAULT-VALUE}).", defaultValue = "0.005")
   double learningRate;
 
+  @Option(names = "--batch-size", paramLabel = "N",
+      description = "Training pairs per step (default ${DEFAULT-VALUE}).", defaultValue = "32")
+  int batchSize;
+
+  @Option(names = "--pairs-per-group", paramLabel = "N",
+      description = "Most training questions taken from one answer group, chosen by a hash of the "
+          + "ticket id; 0 takes all (default ${DEFAULT-VALUE}).", defaultValue = "" + TeamModelTrainer.PAIRS_PER_GROUP)
+  int pairsPerGroup;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -89,13 +99,14 @@ final class TrainCommand implements Callable<Integer> {
         .withVocabulary(vocabulary, RerankerConfig.defaults().minCount())
         .withEpochs(epochs, RerankerConfig.defaults().patience())
         .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
-        .withLearningRate(learningRate);
+        .withLearningRate(learningRate).withBatchSize(batchSize);
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
     FeedbackTraining.Read feedback = FeedbackTraining.read(dataDir, knowledge);
     out.println(feedback.summary());
     out.flush();
-    List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge));
+    List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge,
+        pairsPerGroup));
     pairs.addAll(feedback.pairs());
     TrainingReport report = new TeamModelTrainer(dataDir, config).train(knowledge, pairs,
         TeamModelTrainer.fusionQuestions(knowledge), resume);
