@@ -72,7 +72,8 @@ final class DemoCommand implements Callable<Integer> {
       description = "Port of the service started at the end (default ${DEFAULT-VALUE}).")
   int port;
 
-  @Option(names = "--epochs", paramLabel = "N", defaultValue = "6",
+  // RerankerConfig.defaults().maxEpochs(), measured there.
+  @Option(names = "--epochs", paramLabel = "N", defaultValue = "4",
       description = "Most reranker training epochs (default ${DEFAULT-VALUE}).")
   int epochs;
 

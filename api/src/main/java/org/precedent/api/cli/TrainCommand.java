@@ -59,8 +59,9 @@ final class TrainCommand implements Callable<Integer> {
       description = "Why, for the model audit, with --activate.")
   String reason;
 
+  // RerankerConfig.defaults().maxEpochs(), measured there.
   @Option(names = "--epochs", paramLabel = "N", description = "Most epochs (default ${DEFAULT-VALUE}).",
-      defaultValue = "8")
+      defaultValue = "4")
   int epochs;
 
   @Option(names = "--hidden", paramLabel = "N", description = "LSTM size (default ${DEFAULT-VALUE}).",
@@ -89,6 +90,16 @@ final class TrainCommand implements Callable<Integer> {
           + "softmax with exact scores (default ${DEFAULT-VALUE}).", defaultValue = "0")
   double selfNormalization;
 
+  @Option(names = "--batch-size", paramLabel = "N",
+      description = "Training pairs per step (default ${DEFAULT-VALUE}).", defaultValue = "32")
+  int batchSize;
+
+  @Option(names = "--pairs-per-group", paramLabel = "N",
+      description = "Most training questions taken from one answer group, chosen by a hash of the "
+          + "ticket id; 0 takes all (default ${DEFAULT-VALUE}).",
+      defaultValue = "" + TeamModelTrainer.PAIRS_PER_GROUP)
+  int pairsPerGroup;
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -103,7 +114,7 @@ final class TrainCommand implements Callable<Integer> {
         .withVocabulary(vocabulary, RerankerConfig.defaults().minCount())
         .withEpochs(epochs, RerankerConfig.defaults().patience())
         .withMaxTokens(RerankerConfig.defaults().maxQuestionTokens(), answerTokens)
-        .withLearningRate(learningRate)
+        .withLearningRate(learningRate).withBatchSize(batchSize)
         .withSelfNormalization(selfNormalization);
     NumericLibrary.announce(spec.commandLine().getErr());
     Knowledge knowledge = opened.get();
@@ -119,7 +130,8 @@ final class TrainCommand implements Callable<Integer> {
       FeedbackTraining.Read feedback = FeedbackTraining.read(dataDir, knowledge);
       out.println(feedback.summary());
       out.flush();
-      List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge));
+      List<TrainingPair> pairs = new ArrayList<>(TeamModelTrainer.rerankerPairs(knowledge,
+          pairsPerGroup));
       pairs.addAll(feedback.pairs());
       report = new TeamModelTrainer(dataDir, config).train(knowledge, pairs,
           TeamModelTrainer.fusionQuestions(knowledge), resume);

@@ -38,18 +38,77 @@ public final class TeamModelTrainer {
     this.config = config;
   }
 
-  /** Training pairs: each grouped ticket outside the fusion split, with its group's answer. */
+  /**
+   * Most training pairs taken from one answer group by default ({@link #rerankerPairs(Knowledge)});
+   * 0 takes every ticket.
+   */
+  public static final int PAIRS_PER_GROUP = 0;
+
+  /**
+   * Training pairs: each grouped ticket outside the fusion split, with its group's answer, at most
+   * {@link #PAIRS_PER_GROUP} per group.
+   */
   public static List<TrainingPair> rerankerPairs(Knowledge knowledge) {
+    return rerankerPairs(knowledge, PAIRS_PER_GROUP);
+  }
+
+  /**
+   * Training pairs as {@link #rerankerPairs(Knowledge)}, at most {@code perGroup} per answer group
+   * (0: every ticket), chosen by {@link #capPerGroup}.
+   */
+  public static List<TrainingPair> rerankerPairs(Knowledge knowledge, int perGroup) {
     Map<String, String> groupOf = knowledge.grouping().groupOfTicket();
     Map<String, AnswerGroup> groups = knowledge.grouping().byId();
+    List<String> ids = new ArrayList<>();
+    for (Ticket t : knowledge.tickets().values()) {
+      if (groupOf.get(t.id()) != null && !Splits.isFusionTicket(t.id())) {
+        ids.add(t.id());
+      }
+    }
+    java.util.Set<String> kept = new java.util.HashSet<>(capPerGroup(ids, groupOf, perGroup));
     List<TrainingPair> pairs = new ArrayList<>();
     for (Ticket t : knowledge.tickets().values()) {
-      String group = groupOf.get(t.id());
-      if (group != null && !Splits.isFusionTicket(t.id())) {
-        pairs.add(new TrainingPair(t.question(), groups.get(group).canonical()));
+      if (kept.contains(t.id())) {
+        pairs.add(new TrainingPair(t.question(), groups.get(groupOf.get(t.id())).canonical()));
       }
     }
     return pairs;
+  }
+
+  /**
+   * The tickets kept when each answer group gives at most {@code perGroup} (0: all of them): those
+   * whose SHA-256 of the id comes first, so the choice is the same on every run, does not depend
+   * on the tickets' order, and a group keeps its tickets when more are ingested unless a newcomer
+   * sorts before them. Every group keeps min(size, perGroup) tickets. The hash is not the fusion
+   * split's (CRC32), so the choice is independent of it.
+   */
+  static List<String> capPerGroup(List<String> ticketIds, Map<String, String> groupOf, int perGroup) {
+    if (perGroup < 0) {
+      throw new IllegalArgumentException("pairs per group must be 0 (all) or positive, was " + perGroup);
+    }
+    if (perGroup == 0) {
+      return List.copyOf(ticketIds);
+    }
+    Map<String, List<String>> byGroup = new java.util.TreeMap<>();
+    for (String id : ticketIds) {
+      byGroup.computeIfAbsent(groupOf.get(id), g -> new ArrayList<>()).add(id);
+    }
+    List<String> kept = new ArrayList<>();
+    for (List<String> members : byGroup.values()) {
+      members.sort(java.util.Comparator.comparing(TeamModelTrainer::pairHash).thenComparing(id -> id));
+      kept.addAll(members.subList(0, Math.min(perGroup, members.size())));
+    }
+    return kept;
+  }
+
+  private static String pairHash(String ticketId) {
+    try {
+      byte[] digest = java.security.MessageDigest.getInstance("SHA-256")
+          .digest(ticketId.getBytes(java.nio.charset.StandardCharsets.UTF_8));
+      return java.util.HexFormat.of().formatHex(digest);
+    } catch (java.security.NoSuchAlgorithmException e) {
+      throw new IllegalStateException("SHA-256 is missing from this Java runtime", e);
+    }
   }
 
   /** The fusion split: every stored ticket kept apart from reranker training, one-offs too. */
