@@ -120,4 +120,38 @@ class AnswerClassifierTest {
       assertTrue(accuracy >= 0.93, "accuracy " + accuracy);
     }
   }
+
+  /**
+   * The fit's native memory stays bounded: each step's arrays are reused, not left for the garbage
+   * collector. Without that, 300 steps over 2,000 questions and 150 groups left about 3 GB of
+   * freed-late native arrays (measured here: 6.6 GB resident at 6,000 questions, 0.34 GB with).
+   * Random vectors stand in for questions: only the sizes matter here.
+   */
+  @Test
+  void fittingKeepsNativeMemoryBounded() throws Exception {
+    Random random = new Random(7);
+    List<float[]> vectors = new ArrayList<>();
+    List<String> labels = new ArrayList<>();
+    for (int i = 0; i < 2000; i++) {
+      float[] v = new float[384];
+      for (int j = 0; j < v.length; j++) {
+        v[j] = (float) random.nextGaussian();
+      }
+      vectors.add(v);
+      labels.add("group-" + (i % 150));
+    }
+    long before = residentKb();
+    AnswerClassifier.fit("probe", "0".repeat(64), vectors, labels, AnswerClassifier.LAMBDA);
+    long grown = residentKb() - before;
+    assertTrue(grown < 1_000_000, "the fit grew the process by " + grown / 1024 + " MB resident");
+  }
+
+  private static long residentKb() throws java.io.IOException {
+    for (String line : Files.readAllLines(Path.of("/proc/self/status"))) {
+      if (line.startsWith("VmRSS:")) {
+        return Long.parseLong(line.replaceAll("[^0-9]", ""));
+      }
+    }
+    throw new IllegalStateException("no VmRSS in /proc/self/status");
+  }
 }
