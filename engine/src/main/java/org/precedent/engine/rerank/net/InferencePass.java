@@ -177,9 +177,24 @@ public final class InferencePass {
     int steps = question.steps;
     INDArray stacked = Nd4j.create(DataType.FLOAT, hidden + steps, vocabulary);
     stacked.get(NDArrayIndex.interval(0, hidden), NDArrayIndex.all()).assign(decoderOutput);
-    stacked.get(NDArrayIndex.interval(hidden, hidden + steps), NDArrayIndex.all())
-        .assign(Nd4j.create(question.contexts, new long[] {steps, hidden}, 'c').mmul(contextOutput));
+    INDArray contexts = Nd4j.create(question.contexts, new long[] {steps, hidden}, 'c');
+    INDArray rows = contexts.mmul(contextOutput);
+    stacked.get(NDArrayIndex.interval(hidden, hidden + steps), NDArrayIndex.all()).assign(rows);
+    release(contexts, rows);
     return stacked;
+  }
+
+  /**
+   * Frees arrays' native memory now. Left to the garbage collector, a scoring pass's arrays (its
+   * logits alone are steps x vocabulary floats, megabytes a question) are freed only when the
+   * small heap objects holding them are collected, which a large heap may put off for long.
+   */
+  private static void release(INDArray... arrays) {
+    for (INDArray a : arrays) {
+      if (a != null && a.closeable()) {
+        a.close();
+      }
+    }
   }
 
   /** Encodes a question's ids (as {@link PairCodec#question} gives them, end token included). */
@@ -270,14 +285,18 @@ public final class InferencePass {
     int rows = inputs.length / (hidden + question.steps);
     INDArray logits = logits(question, inputs, rows);
     INDArray max = logits.max(true, 1);
-    INDArray z = Transforms.log(Transforms.exp(logits.subColumnVector(max), false).sum(true, 1), false)
-        .addi(max);
-    return z.castTo(DataType.DOUBLE).data().asDouble();
+    INDArray shifted = logits.subColumnVector(max);
+    INDArray z = Transforms.log(Transforms.exp(shifted, false).sum(true, 1), false).addi(max);
+    double[] out = z.castTo(DataType.DOUBLE).data().asDouble();
+    release(logits, shifted, max, z);
+    return out;
   }
 
   private INDArray logits(EncodedQuestion question, float[] inputs, int rows) {
-    INDArray logits = Nd4j.create(inputs, new long[] {rows, hidden + question.steps}, 'c')
-        .mmul(outputRows(question));
+    INDArray stepRows = Nd4j.create(inputs, new long[] {rows, hidden + question.steps}, 'c');
+    INDArray outputRows = outputRows(question);
+    INDArray logits = stepRows.mmul(outputRows);
+    release(stepRows, outputRows);
     logits.addiRowVector(outputBias);
     return logits;
   }
@@ -298,6 +317,7 @@ public final class InferencePass {
       }
       out[i] = total;
     }
+    release(probabilities);
     return out;
   }
 
