@@ -1,16 +1,16 @@
 package org.precedent.api.cli;
 
+import java.util.Optional;
 import java.util.concurrent.Callable;
+import org.precedent.engine.evaluate.SelfNormalizationReport;
 import org.precedent.engine.rerank.bench.RerankerBenchmark;
+import org.precedent.engine.rerank.store.ModelStore;
+import org.precedent.knowledge.store.DataDir;
+import org.precedent.knowledge.store.Knowledge;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParentCommand;
-import java.util.Optional;
-import org.precedent.engine.evaluate.SelfNormalizationReport;
-import org.precedent.engine.rerank.store.ModelStore;
-import org.precedent.knowledge.store.DataDir;
-import org.precedent.knowledge.store.Knowledge;
 import picocli.CommandLine.Spec;
 
 @Command(name = "reranker", mixinStandardHelpOptions = true,
@@ -28,14 +28,14 @@ final class RerankerBenchmarkCommand implements Callable<Integer> {
       description = "Scoring passes timed (default ${DEFAULT-VALUE}).")
   int repetitions;
 
-  @Option(names = "--version", paramLabel = "V",
+  @Option(names = "--model-version", paramLabel = "V",
       description = "Instead of the speed figures, measure how near a self-normalised model version "
           + "of the data directory (v-NNNN) scores by logits to its exact scores: |log Z| and the "
           + "candidates' order both ways, on the tickets of the fusion split.")
   String version;
 
   @Option(names = "--questions", paramLabel = "N", defaultValue = "400",
-      description = "With --version, most questions asked (default ${DEFAULT-VALUE}).")
+      description = "With --model-version, most questions asked (default ${DEFAULT-VALUE}).")
   int questions;
 
   @ParentCommand
@@ -51,11 +51,12 @@ final class RerankerBenchmarkCommand implements Callable<Integer> {
       DataDir dataDir = new DataDir(parent.parent.dataDir());
       Optional<Knowledge> knowledge = Knowledge.open(dataDir);
       if (knowledge.isEmpty()) {
-        spec.commandLine().getErr().println("precedent benchmark reranker: no tickets in " + dataDir.root());
+        spec.commandLine().getErr().println("precedent benchmark reranker: no tickets in "
+            + dataDir.root());
         return PrecedentCommand.FAILED;
       }
-      SelfNormalizationReport.print(knowledge.get(), new ModelStore(dataDir.models()).load(version), questions,
-          spec.commandLine().getOut());
+      SelfNormalizationReport.print(knowledge.get(), new ModelStore(dataDir.models()).load(version),
+          questions, spec.commandLine().getOut());
       return 0;
     }
     RerankerBenchmark.main(new String[] {"" + trainBatches, "" + repetitions});
