@@ -82,6 +82,7 @@ class LauncherScriptTest {
     List<String> demo = javaArguments(home, bin, null, "demo", "--no-serve");
     assertTrue(demo.contains("-Xmx1g"), demo.toString());
     assertTrue(demo.contains("-XX:MaxDirectMemorySize=128m"), demo.toString());
+    assertTrue(demo.contains("-Dorg.bytedeco.javacpp.maxphysicalbytes=1536m"), demo.toString());
     for (List<String> args : List.of(List.of("train"),
         List.of("--data=x", "benchmark", "service"))) {
       List<String> other = javaArguments(home, bin, null, args.toArray(String[]::new));
