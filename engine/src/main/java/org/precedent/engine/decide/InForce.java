@@ -124,9 +124,10 @@ public final class InForce implements Closeable {
     // checks them again).
     // A version trained without the reranker has no scorer: it decides with the faster legs.
     DeferredScorer scorer;
-    if (deferReranker || !store.hasReranker(version)) {
+    boolean hasReranker = store.hasReranker(version);
+    if (deferReranker || !hasReranker) {
       store.verify(version);
-      scorer = !store.hasReranker(version) ? null : new DeferredScorer(() -> {
+      scorer = !hasReranker ? null : new DeferredScorer(() -> {
         beforeLoading.run();
         return new Scorer(store.load(version));
       });

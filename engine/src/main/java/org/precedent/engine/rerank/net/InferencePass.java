@@ -303,21 +303,34 @@ public final class InferencePass {
 
   private double[] exactSums(EncodedQuestion question, List<int[]> answers, float[] inputs, int rows) {
     // the output layer for every step at once, and the softmax DL4J's output layer applies
-    INDArray logits = logits(question, inputs, rows);
-    Nd4j.getExecutioner().exec(new SoftMax(logits, logits)); // in place, as DL4J's softmax activation
-    INDArray probabilities = logits;
+    INDArray probabilities = logits(question, inputs, rows);
+    Nd4j.getExecutioner().exec(new SoftMax(probabilities, probabilities)); // in place, as DL4J's softmax
+    double[] out = sumOverTargets(answers,
+        (row, target) -> LogLikelihoods.logOf(probabilities.getFloat(row, target)));
+    release(probabilities);
+    return out;
+  }
+
+  /** The log-probability one scoring way gives an answer's target word at one step (row). */
+  private interface StepScore {
+    double of(int row, int target);
+  }
+
+  /**
+   * Each answer's sum of {@code score} over its target words and the end token, its steps taking
+   * consecutive rows of the output layer's input, answer after answer.
+   */
+  private double[] sumOverTargets(List<int[]> answers, StepScore score) {
     double[] out = new double[answers.size()];
     int row = 0;
     for (int i = 0; i < answers.size(); i++) {
       int[] answer = answers.get(i);
       double total = 0;
       for (int t = 0; t <= answer.length; t++, row++) {
-        int target = t == answer.length ? Vocabulary.END_ID : checked(answer[t]);
-        total += LogLikelihoods.logOf(probabilities.getFloat(row, target));
+        total += score.of(row, t == answer.length ? Vocabulary.END_ID : checked(answer[t]));
       }
       out[i] = total;
     }
-    release(probabilities);
     return out;
   }
 
@@ -329,30 +342,22 @@ public final class InferencePass {
     int width = hidden + q;
     int twoH = 2 * hidden;
     float[] context = new float[hidden];
-    double[] out = new double[answers.size()];
-    int row = 0;
-    for (int i = 0; i < answers.size(); i++) {
-      int[] answer = answers.get(i);
-      double total = 0;
-      for (int t = 0; t <= answer.length; t++, row++) {
-        int target = t == answer.length ? Vocabulary.END_ID : checked(answer[t]);
-        int at = row * width;
-        // the attention's output: its weights (after the decoder state in the row) over the contexts
-        java.util.Arrays.fill(context, 0f);
-        for (int j = 0; j < q; j++) {
-          axpy(context, 0, inputs[at + hidden + j], question.contexts, j * hidden, hidden);
-        }
-        int column = target * twoH;
-        double logit = targetBias[target];
-        for (int n = 0; n < hidden; n++) {
-          logit += inputs[at + n] * targetRows[column + n] + context[n] * targetRows[column + hidden + n];
-        }
-        total += Math.max(logit, LOG_FLOOR);
+    return sumOverTargets(answers, (row, target) -> {
+      int at = row * width;
+      // the attention's output: its weights (after the decoder state in the row) over the contexts
+      java.util.Arrays.fill(context, 0f);
+      for (int j = 0; j < q; j++) {
+        axpy(context, 0, inputs[at + hidden + j], question.contexts, j * hidden, hidden);
       }
-      out[i] = total;
-    }
-    return out;
+      int column = target * twoH;
+      double logit = targetBias[target];
+      for (int n = 0; n < hidden; n++) {
+        logit += inputs[at + n] * targetRows[column + n] + context[n] * targetRows[column + hidden + n];
+      }
+      return Math.max(logit, LOG_FLOOR);
+    });
   }
+
 
   /**
    * The output layer's input for every target step of the answers, one row each: the decoder's
